@@ -1,0 +1,1 @@
+"""Published correlations, one function per published equation (SI: K, Pa, J/kg)."""

@@ -1,0 +1,171 @@
+"""Guarded access to CoolProp's reference equations of state (low-level ``AbstractState``).
+
+Every call here keeps inside the range where CoolProp's answer is trustworthy and turns a NaN, an
+infinity or a library exception into a :class:`~phasepath.errors.PropertyError` naming the state
+and the substance. Nothing outside this module and :mod:`phasepath.substances` calls CoolProp.
+"""
+
+from __future__ import annotations
+
+import math
+import threading
+
+import CoolProp.CoolProp as CP
+
+from .errors import OutOfRangeError, PropertyError
+
+__all__ = ["EOS", "fluid_names"]
+
+_PHASE_FLAG = {
+    "liquid": CP.iphase_liquid,
+    "vapor": CP.iphase_gas,
+    "supercritical": CP.iphase_supercritical,
+}
+
+
+def fluid_names() -> list[str]:
+    """Every pure fluid CoolProp 8 knows, by its CoolProp name."""
+    return sorted(CP.get_global_param_string("fluids_list").split(","))
+
+
+class EOS:
+    """One CoolProp ``AbstractState`` per substance, reused for every call.
+
+    Saturation calls are kept strictly inside [T_triple, T_crit] / [p_triple, p_crit]: outside
+    that range CoolProp returns numbers that look plausible and are wrong.
+    """
+
+    def __init__(self, name: str) -> None:
+        self.name = name
+        self._lock = threading.RLock()
+        try:
+            self._as = CP.AbstractState("HEOS", name)
+        except Exception as exc:  # pragma: no cover - names are checked before
+            raise PropertyError(f"CoolProp cannot load {name!r}: {exc}") from None
+        a = self._as
+        self.T_triple = float(a.Ttriple())
+        self.T_crit = float(a.T_critical())
+        self.p_crit = float(a.p_critical())
+        self.T_min = float(a.Tmin())
+        self.T_max = float(a.Tmax())
+        self.p_max = float(a.pmax())
+        self.molar_mass = float(a.molar_mass())
+        # The triple-point pressure from the EOS itself (vapor pressure at T_triple).
+        try:
+            self.p_triple = float(a.p_triple())
+        except Exception:
+            a.update(CP.QT_INPUTS, 0.0, self.T_triple)
+            self.p_triple = float(a.p())
+        self.has_melting_line = bool(a.has_melting_line())
+        self.calls = 0
+
+    # -- saturation ---------------------------------------------------------------------------
+    def _check_sat_T(self, T: float) -> None:
+        if not (self.T_triple <= T <= self.T_crit):
+            raise OutOfRangeError(
+                f"T = {T!r} K is outside the vapor-pressure curve of {self.name}: "
+                f"{self.T_triple} K to {self.T_crit} K"
+            )
+
+    def p_sat(self, T: float) -> float:
+        """Vapor pressure [Pa] at T [K]."""
+        self._check_sat_T(T)
+        return self._sat(CP.QT_INPUTS, 0.0, T, "p")
+
+    def T_sat(self, p: float) -> float:
+        """Saturation temperature [K] at p [Pa]."""
+        if not (self.p_triple <= p <= self.p_crit):
+            raise OutOfRangeError(
+                f"p = {p!r} Pa is outside the vapor-pressure curve of {self.name}: "
+                f"{self.p_triple:.6g} Pa to {self.p_crit:.6g} Pa"
+            )
+        return self._sat(CP.PQ_INPUTS, p, 0.0, "T")
+
+    def latent_heat_vaporization(self, T: float) -> float:
+        """h'' - h' [J/kg] at T [K] on the vapor-pressure curve."""
+        self._check_sat_T(T)
+        with self._lock:
+            try:
+                self.calls += 2
+                self._as.update(CP.QT_INPUTS, 1.0, T)
+                hv = self._as.hmass()
+                self._as.update(CP.QT_INPUTS, 0.0, T)
+                hl = self._as.hmass()
+            except Exception as exc:
+                raise PropertyError(f"{self.name}: saturation at T = {T} K failed: {exc}") from None
+        return self._finite(hv - hl, f"latent heat at T = {T} K")
+
+    def _sat(self, pair: int, a: float, b: float, out: str) -> float:
+        with self._lock:
+            try:
+                self.calls += 1
+                self._as.update(pair, a, b)
+                v = self._as.p() if out == "p" else self._as.T()
+            except Exception as exc:
+                raise PropertyError(
+                    f"{self.name}: saturation state ({a}, {b}) failed: {exc}"
+                ) from None
+        return self._finite(v, f"saturation state ({a}, {b})")
+
+    # -- melting line ---------------------------------------------------------------------------
+    def melting_range(self) -> tuple[float, float, float, float]:
+        """(T_min, T_max, p_min, p_max) of CoolProp's melting line."""
+        a = self._as
+        return (
+            float(a.melting_line(CP.iT_min, -1, 0)),
+            float(a.melting_line(CP.iT_max, -1, 0)),
+            float(a.melting_line(CP.iP_min, -1, 0)),
+            float(a.melting_line(CP.iP_max, -1, 0)),
+        )
+
+    def p_melt(self, T: float) -> float:
+        """CoolProp's melting pressure [Pa] at T [K] (no range check: the caller checks)."""
+        with self._lock:
+            try:
+                self.calls += 1
+                v = self._as.melting_line(CP.iP, CP.iT, T)
+            except Exception as exc:
+                raise PropertyError(f"{self.name}: melting line at T = {T} K failed: {exc}") from None
+        return self._finite(v, f"melting pressure at T = {T} K")
+
+    def T_melt(self, p: float) -> float:
+        """CoolProp's melting temperature [K] at p [Pa] (no range check: the caller checks)."""
+        with self._lock:
+            try:
+                self.calls += 1
+                v = self._as.melting_line(CP.iT, CP.iP, p)
+            except Exception as exc:
+                raise PropertyError(f"{self.name}: melting line at p = {p} Pa failed: {exc}") from None
+        return self._finite(v, f"melting temperature at p = {p} Pa")
+
+    # -- single-phase states --------------------------------------------------------------------
+    def state(self, T: float, p: float, phase: str) -> tuple[float, float, float]:
+        """(h [J/kg], s [J/(kg K)], rho [kg/m3]) of a fluid state in a known phase.
+
+        The phase is imposed, so that states next to a boundary (and vapor below the triple-point
+        temperature, extrapolated along the gas branch) are computed rather than refused.
+        """
+        if phase not in _PHASE_FLAG:
+            raise PropertyError(f"{self.name}: no equation of state for the {phase} phase")
+        with self._lock:
+            a = self._as
+            try:
+                self.calls += 1
+                a.specify_phase(_PHASE_FLAG[phase])
+                a.update(CP.PT_INPUTS, p, T)
+                out = (a.hmass(), a.smass(), a.rhomass())
+            except Exception as exc:
+                raise PropertyError(
+                    f"{self.name}: no {phase} state at T = {T} K, p = {p} Pa ({exc})"
+                ) from None
+            finally:
+                a.unspecify_phase()
+        for v in out:
+            self._finite(v, f"{phase} state at T = {T} K, p = {p} Pa")
+        return out
+
+    def _finite(self, v: float, what: str) -> float:
+        v = float(v)
+        if not math.isfinite(v):
+            raise PropertyError(f"{self.name}: {what} is not finite")
+        return v
