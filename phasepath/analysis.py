@@ -22,8 +22,9 @@ A corner of the route that lies exactly on a boundary takes the phase of the sid
 route arrives; the route's start takes the phase of the side it leaves into. A crossing exactly
 at a corner is recorded once, on the leg that ends there, and only if the phase before the corner
 differs from the phase after it (touching a boundary and turning back is not a crossing). A route
-that ends on a boundary records no crossing there. A leg running through the triple point
-changes phase there directly (e.g. solid -> vapor on the triple-point isobar).
+that ends on a boundary records no crossing there. Candidates closer than 1e-9 (relative) along a
+leg are one point, so a leg running through the triple point changes phase there directly (solid ->
+vapor on the triple-point isobar: one sublimation, not a melting and a vaporization).
 """
 
 from __future__ import annotations
@@ -43,8 +44,9 @@ if TYPE_CHECKING:  # pragma: no cover
 
 __all__ = ["analyze", "crossing_kind", "TOLERANCE"]
 
-#: Relative distance below which a candidate counts as sitting on a leg's end.
-_END_TOL = 1e-12
+#: Relative distance below which a candidate counts as sitting on a leg's end, and below which
+#: two candidates count as one point (three curves meeting at a triple point).
+_END_TOL = 1e-9
 #: Guaranteed relative agreement between a crossing and its boundary.
 TOLERANCE = 1e-9
 
@@ -177,8 +179,13 @@ def _inside(cands: list[_Candidate], x0: float, x1: float) -> list[_Candidate]:
     out: list[_Candidate] = []
     for c in keep:
         if out and abs(c.x - out[-1].x) <= _END_TOL * abs(c.x):
-            if out[-1].method == "junction":  # prefer a real branch to a junction
+            prev = out[-1]
+            if prev.method == "junction":  # prefer a real branch to a junction
                 out[-1] = c
+            elif c.method != "junction" and c.boundary != prev.boundary:
+                # two branches meet here: a triple point
+                out[-1] = _Candidate(prev.x, prev.T, prev.p, "triple point", prev.method,
+                                     prev.evaluations + c.evaluations)
             continue
         out.append(c)
     return out

@@ -50,12 +50,10 @@ class EOS:
         self.T_max = float(a.Tmax())
         self.p_max = float(a.pmax())
         self.molar_mass = float(a.molar_mass())
-        # The triple-point pressure from the EOS itself (vapor pressure at T_triple).
-        try:
-            self.p_triple = float(a.p_triple())
-        except Exception:
-            a.update(CP.QT_INPUTS, 0.0, self.T_triple)
-            self.p_triple = float(a.p())
+        # The triple-point pressure is the EOS vapor pressure at T_triple, from the same
+        # saturation call the vapor-pressure branch uses, so that the curves meet exactly.
+        a.update(CP.QT_INPUTS, 0.0, self.T_triple)
+        self.p_triple = float(a.p())
         self.has_melting_line = bool(a.has_melting_line())
         self.calls = 0
 

@@ -3,8 +3,8 @@
 >>> import phasepath as pp
 >>> water = pp.substance("water")
 >>> water.name, water.triple
-('Water', (273.16, 611.6548008968684))
->>> water.phase(298.15, 101325.0), water.phase(650.0, 25e6), water.phase(260.0, 100.0)
+('Water', (273.16, 611.6547710699587))
+>>> water.phase(298.15, 101325.0), water.phase(650.0, 25e6), water.phase(260.0, 1000.0)
 ('liquid', 'supercritical', 'solid')
 """
 
