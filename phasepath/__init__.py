@@ -3,7 +3,9 @@
 from __future__ import annotations
 
 from . import errors
+from .batch import analyze_many
 from .errors import (
+    BatchError,
     NonFiniteError,
     OutOfRangeError,
     PhasePathError,
@@ -25,6 +27,7 @@ __all__ = [
     "Substance",
     "Route",
     "Leg",
+    "analyze_many",
     "Report",
     "Crossing",
     "LegSummary",
@@ -38,5 +41,15 @@ __all__ = [
     "RouteError",
     "PropertyError",
     "RouteFileError",
+    "BatchError",
     "__version__",
 ]
+
+
+def __getattr__(name: str) -> object:
+    # ``pp.widgets`` is imported on first use, so the core never imports ipywidgets or bqplot.
+    if name == "widgets":
+        import importlib
+
+        return importlib.import_module(".widgets", __name__)
+    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")

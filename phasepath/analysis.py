@@ -30,16 +30,18 @@ vapor on the triple-point isobar: one sublimation, not a melting and a vaporizat
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from functools import lru_cache
 from typing import TYPE_CHECKING
 
 from .errors import PhasePathError, RouteError
+from .hazards import crossing_hazards, leg_hazards
+from .processes import CURVED_KINDS, state_key
 from .report import Crossing, LegSummary, Report, StatePoint
-from .thermo import latent_heat, leg_heat_work
+from .thermo import BASES, latent_heat, leg_heat_work
 
 if TYPE_CHECKING:  # pragma: no cover
-    from .route import Route
+    from .route import Leg, Route
     from .substances import Substance
 
 __all__ = ["analyze", "crossing_kind", "TOLERANCE"]
@@ -67,12 +69,32 @@ _KIND = {
 
 
 def crossing_kind(from_phase: str, to_phase: str) -> str:
-    """Name of the transition from one phase to another.
+    """Name of the transition from one phase (or mixture on a boundary) to another.
 
     >>> crossing_kind("vapor", "solid")
     'deposition'
+    >>> crossing_kind("liquid+vapor", "solid+vapor")
+    'deposition'
     """
-    return _KIND[(from_phase, to_phase)]
+    if (from_phase, to_phase) in _KIND:
+        return _KIND[(from_phase, to_phase)]
+    b, a = set(from_phase.split("+")), set(to_phase.split("+"))
+    if "solid" in a and "vapor" in a and "solid" not in b:
+        return "deposition"  # solid now forms beside the vapor (dry-ice snow)
+    if "solid" in b and "vapor" in b and "solid" not in a:
+        return "sublimation" if "liquid" not in a else "melting"
+    lost, gained = b - a, a - b
+    one = (lost.pop() if len(lost) == 1 else None, gained.pop() if len(gained) == 1 else None)
+    if one[0] and one[1] and one in _KIND:
+        return _KIND[one]  # type: ignore[index]
+    both = sorted(b | a)
+    if len(both) == 2:
+        x, y = both
+        if (x, y) in _KIND and (y in a - b or x in b - a):
+            return _KIND[(x, y)]
+        if (y, x) in _KIND:
+            return _KIND[(y, x)]
+    raise RouteError(f"no name for a change from {from_phase} to {to_phase}")
 
 
 @dataclass(frozen=True)
@@ -93,48 +115,165 @@ class _Trace:
     phases: tuple[tuple[str, str | None], ...]  # (phase, form) of each interval
 
 
-def analyze(route: Route) -> Report:
-    """Analyse a route: crossings in route order, one summary per leg, notes."""
+def analyze(route: Route, basis: str = "steady-flow") -> Report:
+    """Analyse a route: crossings in route order, one summary per leg, notes.
+
+    ``basis`` is "steady-flow" (per kg through a device) or "closed" (per kg in a closed
+    vessel) for the heat and work of each leg; see :func:`phasepath.thermo.leg_heat_work`.
+    """
+    if basis not in BASES:
+        raise RouteError(f"unknown heat-and-work basis {basis!r}; choose one of {', '.join(BASES)}")
     sub = route.substance
-    corners = route.corners()
     if not route.legs:
         raise RouteError("the route has no legs yet: add an isobar or an isotherm to analyse")
-    traces = [
-        _trace(sub, leg.kind, *corners[i], *corners[i + 1]) for i, leg in enumerate(route.legs)
-    ]
+    walks = []
+    prev_end = route.start.state
+    corners = route.corners()  # once: per leg it made long routes quadratic
+    for i, leg in enumerate(route.legs):
+        walk = _walk(sub, leg, corners[i], prev_end)
+        walks.append(walk)
+        prev_end = leg.state
     crossings: list[Crossing] = []
     legs: list[LegSummary] = []
-    for i, (leg, tr) in enumerate(zip(route.legs, traces)):
+    start_state = route.start.state
+    for i, (leg, walk) in enumerate(zip(route.legs, walks)):
         step = i + 1
-        for k, cand in enumerate(tr.candidates):
-            before, after = tr.phases[k], tr.phases[k + 1]
-            if before[0] != after[0]:
-                crossings.append(_crossing(sub, step, cand, before, after, at_corner=False))
-        if i + 1 < len(traces):
-            before, after = tr.phases[-1], traces[i + 1].phases[0]
-            if before[0] != after[0]:
-                T, p = corners[i + 1]
-                corner = _Candidate(T if leg.kind == "isobar" else p, T, p, "corner", "corner", 0)
-                crossings.append(_crossing(sub, step, corner, before, after, at_corner=True))
-        (T0, p0), (T1, p1) = corners[i], corners[i + 1]
-        start = StatePoint(T0, p0, *tr.phases[0])
-        end = StatePoint(T1, p1, *tr.phases[-1])
-        heat, work, note = leg_heat_work(sub, leg.kind, start, end)
-        legs.append(LegSummary(step, leg.kind, start, end, heat, work, note))
-    return Report(route, crossings, legs, list(sub.notes))
+        found: list[Crossing] = []
+        if i == 0 and start_state is not None and state_key(start_state) != walk.first:
+            found.append(_crossing(sub, step, leg.kind, _corner(leg, start_state),
+                                   state_key(start_state), walk.first, "corner"))
+        found += [_crossing(sub, step, leg.kind, c, before, after, "")
+                  for c, before, after in walk.crossings]
+        end_key = walk.last
+        if i + 1 < len(walks) and walks[i + 1].first != end_key:
+            T, p = leg.T, leg.p
+            corner = _Candidate(T if leg.kind == "isobar" else p, T, p, "corner", "corner", 0)
+            found.append(_crossing(sub, step, leg.kind, corner, end_key, walks[i + 1].first,
+                                   "corner"))
+            end_key = walks[i + 1].first
+        start = start_state if start_state is not None else _single(sub, walk.path[0], walk.first)
+        end = leg.state if (leg.state is not None and state_key(leg.state) == end_key) else (
+            _single(sub, walk.path[-1], end_key))
+        heat, work, note = leg_heat_work(leg.kind, start, end, basis)
+        hazards = leg_hazards(sub, leg.kind, list(walk.path), found)
+        legs.append(LegSummary(step, leg.kind, start, end, heat, work, note, basis,
+                               tuple(walk.path), hazards, leg.event))
+        crossings += found
+        start_state = end
+    notes = list(sub.notes)
+    if route.elevation is not None:
+        notes.append(_ambient_note(sub, route.elevation))
+    return Report(route, crossings, legs, notes)
 
 
-def _crossing(sub: Substance, step: int, cand: _Candidate, before: tuple[str, str | None],
-              after: tuple[str, str | None], at_corner: bool) -> Crossing:
+@dataclass(frozen=True)
+class _Walk:
+    """One leg walked through: phase keys at its ends, its crossings, sampled states."""
+
+    first: tuple[str, str | None]
+    last: tuple[str, str | None]
+    crossings: tuple[tuple[_Candidate, tuple[str, str | None], tuple[str, str | None]], ...]
+    path: tuple[StatePoint, ...]
+
+
+def _walk(sub: Substance, leg: Leg, corner: tuple[float, float], prev_end: StatePoint | None) -> _Walk:
+    T0, p0 = corner
+    if leg.kind in CURVED_KINDS:
+        return _walk_curved(sub, leg, T0, p0, prev_end)
+    tr = _trace(sub, leg.kind, T0, p0, leg.T, leg.p)
+    found = [(c, tr.phases[k], tr.phases[k + 1])
+             for k, c in enumerate(tr.candidates) if tr.phases[k][0] != tr.phases[k + 1][0]]
+    last = tr.phases[-1]
+    if leg.state is not None and state_key(leg.state) != last:
+        # an event leg ends after its transition ("until fully vapor")
+        x = leg.T if leg.kind == "isobar" else leg.p
+        found.append((_Candidate(x, leg.T, leg.p, _boundary_name(
+            crossing_kind(last[0], leg.state.phase)), "event", 0), last, state_key(leg.state)))
+        last = state_key(leg.state)
+    path = (StatePoint(T0, p0, *tr.phases[0]),
+            *(StatePoint(c.T, c.p, *tr.phases[k + 1]) for k, c in enumerate(tr.candidates)),
+            StatePoint(leg.T, leg.p, *last))
+    return _Walk(tr.phases[0], last, tuple(found), path)
+
+
+def _walk_curved(sub: Substance, leg: Leg, T0: float, p0: float, prev_end: StatePoint | None) -> _Walk:
+    from .route import _processes
+
+    pr = _processes()
+    assert leg.state is not None
+    start = prev_end if prev_end is not None else _single(sub, StatePoint(T0, p0, "?"), sub.classify(T0, p0))
+    if leg.kind == "isochore":
+        v = 1.0 / (start.rho or leg.state.rho or 1.0)
+
+        def state_at(x: float) -> StatePoint:
+            return pr.flash_Tv(sub, x, v)
+        x0, x1, geometric = T0, leg.T, False
+    else:
+        prop = "h" if leg.kind == "isenthalp" else "s"
+        value = start.h if prop == "h" else start.s
+        assert value is not None
+
+        def state_at(x: float) -> StatePoint:
+            return pr.flash_p(sub, x, prop, value)
+        x0, x1, geometric = p0, leg.p, True
+    states, events = pr.trace(state_at, x0, x1, geometric)
+    found = []
+    T_c, p_c = sub.critical
+    for before, after, count in events:
+        on = after if "+" in after.phase else before
+        x = on.T if leg.kind == "isochore" else on.p
+        kind = crossing_kind(before.phase, after.phase)
+        label = _boundary_name(kind)
+        if "+" in before.phase and "+" in after.phase:
+            label = "triple point"
+        elif kind.startswith("supercritical"):
+            label = "critical isobar" if on.T > T_c and abs(on.p / p_c - 1) < 1e-6 else (
+                "critical isotherm")
+        cand = _Candidate(x, on.T, on.p, label, "bisection", count)
+        found.append((cand, state_key(before), state_key(after)))
+    return _Walk(state_key(states[0]), state_key(states[-1]), tuple(found), tuple(states))
+
+
+def _single(sub: Substance, where: StatePoint, key: tuple[str, str | None]) -> StatePoint:
+    from .processes import single_state
+
+    if "+" in key[0]:
+        return where
+    return single_state(sub, where.T, where.p, key[0], key[1])
+
+
+def _corner(leg: Leg, state: StatePoint) -> _Candidate:
+    return _Candidate(state.T if leg.kind == "isobar" else state.p, state.T, state.p,
+                      "corner", "corner", 0)
+
+
+def _crossing(sub: Substance, step: int, leg_kind: str, cand: _Candidate,
+              before: tuple[str, str | None], after: tuple[str, str | None],
+              where: str) -> Crossing:
+    from .processes import describe_change
+
     kind = crossing_kind(before[0], after[0])
-    boundary = cand.boundary if not at_corner else _boundary_name(kind)
+    boundary = cand.boundary if where != "corner" else _boundary_name(kind)
     L, model, note = latent_heat(sub, kind, cand.T, cand.p, before, after)
-    return Crossing(
+    c = Crossing(
         step=step, kind=kind, from_phase=before[0], to_phase=after[0], T=cand.T, p=cand.p,
         latent_heat=L, latent_heat_model=model, latent_heat_note=note, boundary=boundary,
         method=cand.method, evaluations=cand.evaluations, from_form=before[1],
-        to_form=after[1], at_corner=at_corner,
+        to_form=after[1], at_corner=where == "corner", detail=describe_change(before[0], after[0]),
     )
+    hz = crossing_hazards(sub, leg_kind, c)
+    return replace(c, hazards=hz) if hz else c
+
+
+def _ambient_note(sub: Substance, elevation: float) -> str:
+    from .atmosphere import ambient_pressure
+
+    p = ambient_pressure(elevation)
+    text = f"Site elevation {elevation:g} m: ambient pressure {p:.6g} Pa (U.S. Standard Atmosphere 1976)"
+    if sub.vapor is not None and sub.triple[1] <= p <= sub.critical[1]:
+        T_b = sub.vapor.temperatures_at(p)[0][0]
+        text += f"; {sub.name} boils there at {T_b:.6g} K ({T_b - 273.15:.2f} °C)"
+    return text + "."
 
 
 def _boundary_name(kind: str) -> str:

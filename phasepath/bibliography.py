@@ -28,6 +28,38 @@ SOURCES: dict[str, str] = {
         "the Triple-Point Temperature to 1100 K at Pressures up to 800 MPa, J. Phys. Chem. Ref. "
         "Data 25, 1509 (1996), doi:10.1063/1.555991"
     ),
+    "JagerSpan2012": (
+        "Jäger & Span, Equation of State for Solid Carbon Dioxide Based on the Gibbs Free Energy, "
+        "J. Chem. Eng. Data 57, 590 (2012), doi:10.1021/je2011677"
+    ),
+    "IAPWS-R10-06": (
+        "IAPWS R10-06(2009), Revised Release on the Equation of State 2006 for H2O Ice Ih; "
+        "Feistel & Wagner, A New Equation of State for H2O Ice Ih, J. Phys. Chem. Ref. Data 35, "
+        "1021 (2006), doi:10.1063/1.2183324"
+    ),
+    "Span2000-N2": (
+        "Span, Lemmon, Jacobsen, Wagner & Yokozeki, A Reference Equation of State for the "
+        "Thermodynamic Properties of Nitrogen for Temperatures from 63.151 to 1000 K and Pressures "
+        "to 2200 MPa, J. Phys. Chem. Ref. Data 29, 1361 (2000), doi:10.1063/1.1349047"
+    ),
+    "Tegeler1999": (
+        "Tegeler, Span & Wagner, A New Equation of State for Argon Covering the Fluid Region for "
+        "Temperatures from the Melting Line to 700 K at Pressures up to 1000 MPa, J. Phys. Chem. "
+        "Ref. Data 28, 779 (1999), doi:10.1063/1.556037"
+    ),
+    "SetzmannWagner1991": (
+        "Setzmann & Wagner, A New Equation of State and Tables of Thermodynamic Properties for "
+        "Methane Covering the Range from the Melting Line to 625 K at Pressures up to 1000 MPa, "
+        "J. Phys. Chem. Ref. Data 20, 1061 (1991), doi:10.1063/1.555898"
+    ),
+    "Lemmon2002-CH4-sub": (
+        "Lemmon (2002), sublimation-pressure equation of methane, unpublished; distributed with "
+        "the methane fluid file of NIST REFPROP (NIST Standard Reference Database 23)"
+    ),
+    "FraySchmitt2009": (
+        "Fray & Schmitt, Sublimation of ices of astrophysical interest: A bibliographic review, "
+        "Planet. Space Sci. 57, 2053 (2009), doi:10.1016/j.pss.2009.09.011"
+    ),
 }
 
 

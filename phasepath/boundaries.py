@@ -45,6 +45,10 @@ class Boundary:
         water's ice Ih, whose melting pressure falls as temperature rises.
     reliable : bool
         False where the source is known to be poor (stated in ``note``).
+    T_valid : (float, float) or None
+        Temperature range [K] where the branch rests on data (a fitted or published range).
+        Outside it, within [T_min, T_max], the branch is an extrapolation: drawn and analysed,
+        but flagged in the report. None: the whole branch is valid.
     """
 
     kind: str
@@ -58,6 +62,7 @@ class Boundary:
     solid_side: str = "above"
     reliable: bool = True
     note: str = ""
+    T_valid: tuple[float, float] | None = None
     _sample: tuple[np.ndarray, np.ndarray] | None = field(default=None, init=False, repr=False)
 
     def pressure(self, T: float) -> float:
@@ -93,7 +98,9 @@ class Boundary:
 
         Returns a list of ``(T, method, evaluations)``. A direct inverse is used where the source
         has one; otherwise each sign change of the cached sample is refined with ``brentq`` on the
-        exact equation (absolute tolerance 1e-12 K, relative 4 eps).
+        exact equation (relative tolerance 4 eps), then moved to the neighbouring float where the
+        branch pressure is closest to p. On steep branches (ice Ih melting, about -13 MPa/K) a
+        tolerance in T alone is not enough: 1e-12 K there is 1e-8 of p at 1 kPa.
         """
         T, pp = self.sample()
         lo, hi = (pp[0], pp[-1]) if pp[0] <= pp[-1] else (pp[-1], pp[0])
@@ -120,8 +127,22 @@ class Boundary:
                     count[0] += 1
                     return self.p_of_T(t) - p
 
-                root = brentq(g, float(T[i]), float(T[i + 1]), xtol=1e-12, rtol=4 * np.finfo(float).eps)
-                out.append((float(root), "brentq", count[0]))
+                root = brentq(g, float(T[i]), float(T[i + 1]), xtol=1e-300,
+                              rtol=4 * np.finfo(float).eps)
+                out.append((_nearest_float_root(g, float(root)), "brentq", count[0]))
         if f[-1] == 0.0:
             out.append((float(T[-1]), "node", 1))
         return out
+
+
+def _nearest_float_root(g: Callable[[float], float], t: float, reach: int = 4) -> float:
+    """The float within ``reach`` steps of t where |g| is smallest (t itself on ties)."""
+    best, g_best = t, abs(g(t))
+    for direction in (math.inf, -math.inf):
+        x = t
+        for _ in range(reach):
+            x = math.nextafter(x, direction)
+            gx = abs(g(x))
+            if gx < g_best:
+                best, g_best = x, gx
+    return best

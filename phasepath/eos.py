@@ -153,14 +153,82 @@ class EOS:
                 a.update(CP.PT_INPUTS, p, T)
                 out = (a.hmass(), a.smass(), a.rhomass())
             except Exception as exc:
-                raise PropertyError(
-                    f"{self.name}: no {phase} state at T = {T} K, p = {p} Pa ({exc})"
-                ) from None
+                a.unspecify_phase()
+                if not (self.T_triple <= T and phase != "vapor" or p > self.p_crit):
+                    raise PropertyError(
+                        f"{self.name}: no {phase} state at T = {T} K, p = {p} Pa ({exc})"
+                    ) from None
+                # next to the critical point an imposed phase can fail: let CoolProp decide
+                try:
+                    self.calls += 1
+                    a.update(CP.PT_INPUTS, p, T)
+                    out = (a.hmass(), a.smass(), a.rhomass())
+                except Exception as exc2:
+                    raise PropertyError(
+                        f"{self.name}: no {phase} state at T = {T} K, p = {p} Pa ({exc2})"
+                    ) from None
             finally:
                 a.unspecify_phase()
         for v in out:
             self._finite(v, f"{phase} state at T = {T} K, p = {p} Pa")
         return out
+
+    def state_DT(self, rho: float, T: float) -> tuple[float, float, float]:
+        """(p [Pa], h [J/kg], s [J/(kg K)]) of a single-phase fluid state from density and T.
+
+        The caller makes sure the state is single-phase (outside the saturation dome).
+        """
+        with self._lock:
+            a = self._as
+            try:
+                self.calls += 1
+                a.update(CP.DmassT_INPUTS, rho, T)
+                out = (a.p(), a.hmass(), a.smass())
+            except Exception as exc:
+                raise PropertyError(
+                    f"{self.name}: no fluid state at T = {T} K, density = {rho} kg/m3 ({exc})"
+                ) from None
+        for v in out:
+            self._finite(v, f"state at T = {T} K, density = {rho} kg/m3")
+        return out
+
+    def flash(self, prop: str, p: float, value: float) -> tuple[float, float, float, float, float]:
+        """(T, h, s, rho, quality) from p [Pa] and h [J/kg] or s [J/(kg K)]: CoolProp's own flash.
+
+        Used for fluid states above the triple-point pressure; the caller checks the answer.
+        """
+        pair = CP.HmassP_INPUTS if prop == "h" else CP.PSmass_INPUTS
+        with self._lock:
+            a = self._as
+            try:
+                self.calls += 1
+                if prop == "h":
+                    a.update(pair, value, p)
+                else:
+                    a.update(pair, p, value)
+                out = (a.T(), a.hmass(), a.smass(), a.rhomass(), a.Q())
+            except Exception as exc:
+                raise PropertyError(
+                    f"{self.name}: no state at p = {p} Pa with {prop} = {value} ({exc})"
+                ) from None
+        for v in out[:4]:
+            self._finite(v, f"state at p = {p} Pa with {prop} = {value}")
+        return out
+
+    def saturated(self, T: float) -> tuple[tuple[float, float, float], tuple[float, float, float]]:
+        """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]."""
+        self._check_sat_T(T)
+        out = []
+        with self._lock:
+            a = self._as
+            for q in (0.0, 1.0):
+                try:
+                    self.calls += 1
+                    a.update(CP.QT_INPUTS, q, T)
+                    out.append((a.hmass(), a.smass(), a.rhomass()))
+                except Exception as exc:
+                    raise PropertyError(f"{self.name}: saturation at T = {T} K failed: {exc}") from None
+        return out[0], out[1]
 
     def _finite(self, v: float, what: str) -> float:
         v = float(v)

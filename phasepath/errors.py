@@ -16,6 +16,7 @@ __all__ = [
     "RouteError",
     "PropertyError",
     "RouteFileError",
+    "BatchError",
 ]
 
 
@@ -30,7 +31,9 @@ class UnknownSubstanceError(PhasePathError):
         self.name = name
         self.suggestions = tuple(suggestions)
         hint = f"; did you mean {', '.join(repr(s) for s in self.suggestions)}?" if suggestions else ""
-        super().__init__(f"unknown substance {name!r}{hint}")
+        shown = repr(name) if len(repr(name)) <= 80 else f"{repr(name)[:60]}… ({len(repr(name))} characters)"
+        super().__init__(f"unknown substance {shown}{hint} (phasepath.substances() lists the "
+                         f"names it knows; aliases such as 'CO2' or 'water' work too)")
 
 
 class OutOfRangeError(PhasePathError):
@@ -55,3 +58,10 @@ class PropertyError(PhasePathError):
 
 class RouteFileError(PhasePathError):
     """A route file that cannot be read: names the field and, where known, the line."""
+
+
+class BatchError(PhasePathError):
+    """Routes of a batch that failed (``failures``: index -> error; ``reports``: the rest)."""
+
+    failures: dict[int, PhasePathError]
+    reports: list

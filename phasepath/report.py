@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 import html
-from dataclasses import asdict, dataclass
+from dataclasses import asdict, dataclass, field
 from typing import TYPE_CHECKING, Any
 
 from .units import convert
@@ -14,7 +14,8 @@ if TYPE_CHECKING:  # pragma: no cover
     from .route import Route
     from .substances import Substance
 
-__all__ = ["Crossing", "StatePoint", "LegSummary", "Report", "CROSSING_KINDS", "UNIT_LABELS"]
+__all__ = ["Crossing", "StatePoint", "LegSummary", "Hazard", "Report", "CROSSING_KINDS",
+           "UNIT_LABELS"]
 
 #: Every kind of crossing the analyser reports.
 CROSSING_KINDS = (
@@ -26,6 +27,15 @@ CROSSING_KINDS = (
 UNIT_LABELS = {"degC": "°C", "degF": "°F", "K": "K", "Pa": "Pa", "kPa": "kPa", "bar": "bar",
                "MPa": "MPa", "psi": "psi", "atm": "atm", "J/kg": "J/kg", "kJ/kg": "kJ/kg",
                "Btu/lb": "Btu/lb"}
+
+
+@dataclass(frozen=True)
+class Hazard:
+    """A hazard flag on a leg or a crossing: what, why, and the caution that goes with it."""
+
+    kind: str
+    reason: str
+    caution: str
 
 
 @dataclass(frozen=True)
@@ -55,6 +65,8 @@ class Crossing:
     from_form: str | None = None
     to_form: str | None = None
     at_corner: bool = False
+    detail: str = ""
+    hazards: tuple[Hazard, ...] = ()
 
     def describe(self) -> str:
         """One line for a human reader."""
@@ -64,12 +76,25 @@ class Crossing:
 
 @dataclass(frozen=True)
 class StatePoint:
-    """A state on the route: T [K], p [Pa], its phase and (for water's ices) the ice form."""
+    """A state on the route.
+
+    ``phase`` is one of the four regions, or a mixture on a boundary ("liquid+vapor",
+    "solid+vapor", "solid+liquid") reached on a constant-volume, -enthalpy or -entropy leg.
+    ``vapor_fraction`` and ``solid_fraction`` are mass fractions, None for a single phase.
+    ``h`` [J/kg], ``s`` [J/(kg K)] and ``rho`` [kg/m3] are None where no model covers the state
+    (the reason is in ``model``).
+    """
 
     T: float
     p: float
     phase: str
     form: str | None = None
+    vapor_fraction: float | None = None
+    solid_fraction: float | None = None
+    h: float | None = field(default=None, compare=False)
+    s: float | None = field(default=None, compare=False)
+    rho: float | None = field(default=None, compare=False)
+    model: str = field(default="", compare=False)
 
 
 @dataclass(frozen=True)
@@ -90,6 +115,10 @@ class LegSummary:
     heat: float | None
     work: float | None
     note: str = ""
+    basis: str = "steady-flow"
+    path: tuple[StatePoint, ...] = field(default=(), compare=False, repr=False)
+    hazards: tuple[Hazard, ...] = ()
+    event: str = ""
 
 
 class Report:
@@ -137,9 +166,11 @@ class Report:
                                         else convert(c.latent_heat, "J/kg", energy_unit, "energy")),
                 "boundary": c.boundary,
                 "latent heat model": c.latent_heat_model or c.latent_heat_note,
+                "detail": c.detail,
+                "hazards": "; ".join(h.kind for h in c.hazards),
             })
         cols = ["leg", "kind", "from", "to", f"T [{tl}]", f"p [{pl}]", f"latent heat [{el}]",
-                "boundary", "latent heat model"]
+                "boundary", "latent heat model", "detail", "hazards"]
         return pd.DataFrame(rows, columns=cols)
 
     def legs_table(self, T_unit: str = "K", p_unit: str = "Pa", energy_unit: str = "kJ/kg") -> pd.DataFrame:
@@ -162,9 +193,12 @@ class Report:
                 f"T end [{tl}]": convert(leg.end.T, "K", T_unit, "temperature"),
                 f"p end [{pl}]": convert(leg.end.p, "Pa", p_unit, "pressure"),
                 "phase end": _phase_text(leg.end.phase, leg.end.form),
+                "vapor fraction end": leg.end.vapor_fraction,
+                "solid fraction end": leg.end.solid_fraction,
                 f"heat [{el}]": e(leg.heat),
                 f"work [{el}]": e(leg.work),
-                "note": leg.note,
+                "hazards": "; ".join(f"{h.kind}: {h.reason}" for h in leg.hazards),
+                "note": leg.note if not leg.event else f"{leg.event}; {leg.note}",
             })
         return pd.DataFrame(rows)
 

@@ -8,20 +8,30 @@
 
 from __future__ import annotations
 
+import re
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any
 
-from .errors import PhasePathError, RouteError
+from scipy.optimize import brentq
+
+from .atmosphere import ambient_pressure
+from .errors import OutOfRangeError, PhasePathError, RouteError
+from .report import StatePoint
 from .substances import Substance, substance
-from .units import parse_pressure, parse_temperature
+from .units import parse_pressure, parse_quantity, parse_temperature
 
 if TYPE_CHECKING:
     from .report import Report
 
 __all__ = ["Route", "Leg", "LEG_KINDS"]
 
-#: Leg kinds and the coordinate each one holds fixed.
-LEG_KINDS = {"isobar": "p", "isotherm": "T"}
+#: Leg kinds and the property each one holds fixed.
+LEG_KINDS = {"isobar": "p", "isotherm": "T", "isochore": "v", "isenthalp": "h", "isentrope": "s"}
+
+#: Events that can end a constant-pressure or constant-temperature leg (plus "N K superheat"
+#: and "N K subcooling" on a constant-pressure leg).
+EVENTS = ("fully vapor", "fully liquid", "first liquid", "first vapor", "first solid")
+_DELTA = re.compile(r"^\s*([0-9]*\.?[0-9]+)\s*K\s+(superheat|subcooling)\s*$", re.IGNORECASE)
 
 _SAME = 1e-12  # relative: a leg shorter than this is a zero-length leg
 
@@ -36,21 +46,41 @@ def _reraise(exc: PhasePathError, where: str, given: object) -> PhasePathError:
     return new
 
 
-def _parse(kind: str, value: object, where: str) -> float:
+def _parse(kind: str, value: object, where: str, elevation: float | None = None,
+           sub: Substance | None = None) -> float:
     try:
+        if kind == "p" and isinstance(value, str) and value.strip().lower() == "ambient":
+            return ambient_pressure(0.0 if elevation is None else elevation)
+        if kind == "density":
+            return parse_quantity(value, "density")
         return parse_temperature(value) if kind == "T" else parse_pressure(value)
     except PhasePathError as exc:
-        raise _reraise(exc, where, value) from None
+        err = _reraise(exc, where, value if len(repr(value)) <= 80 else "…")
+        if sub is not None and kind in ("T", "p"):  # name the substance and its valid range
+            Exception.__init__(err, f"{err} ({_valid_range(sub, kind)})")
+        raise err from None
+
+
+def _valid_range(sub: Substance, kind: str) -> str:
+    if kind == "T":
+        return f"{sub.name}: valid T {sub.T_min:g} K to {sub.T_max:g} K"
+    return f"{sub.name}: valid p above 0 Pa, up to {sub.p_max:.6g} Pa"
 
 
 @dataclass(frozen=True)
 class Leg:
-    """One leg: its kind, its end state [K, Pa] and the target as the user wrote it."""
+    """One leg: its kind, its end state [K, Pa] and the target as the user wrote it.
+
+    ``state`` is the resolved end state where the leg fixes more than (T, p): a leg that ends on
+    a mixture (constant v, h or s) or on an event ("fully vapor"); ``event`` says which event.
+    """
 
     kind: str
     T: float
     p: float
     given: dict[str, Any] = field(default_factory=dict, compare=False)
+    state: StatePoint | None = field(default=None, compare=False, repr=False)
+    event: str = ""
 
 
 class Route:
@@ -63,6 +93,12 @@ class Route:
     T, p : float, str or pint.Quantity
         Start temperature and pressure. Numbers are SI (K, Pa); strings carry their unit
         (``"25 degC"``, ``"60 bar"``, ``"14.7 psi"``).
+    density : float, str or pint.Quantity, optional
+        Start density [kg/m3] instead of ``p``: with ``T`` it fixes a state inside the
+        two-phase region too (a cylinder's fill density).
+    elevation : float, optional
+        Site elevation [m]; a pressure written ``"ambient"`` is then the U.S. Standard
+        Atmosphere 1976 pressure there (sea level if no elevation is given).
     title, notes : str
         Free text kept with the route (shown in reports and saved in route files).
     """
@@ -75,34 +111,145 @@ class Route:
         *,
         title: str = "",
         notes: str = "",
+        density: object = None,
+        elevation: float | None = None,
     ) -> None:
         self.substance = substance(substance_)
         self.title = str(title)
         self.notes = str(notes)
-        T0 = _parse("T", T, "start temperature")
-        p0 = _parse("p", p, "start pressure")
-        self._check(T0, p0, "start state", {"T": T, "p": p})
-        self.start = Leg("start", T0, p0, {"T": T, "p": p})
+        if elevation is not None:
+            ambient_pressure(elevation)  # validates it
+        self.elevation = elevation
+        T0 = _parse("T", T, "start temperature", sub=self.substance)
+        if density is not None:
+            if p is not None:
+                raise RouteError("give the start pressure or the start density, not both")
+            rho = _parse("density", density, "start density")
+            given = {"T": T, "density": density}
+            if not rho > 0:
+                raise OutOfRangeError(f"start density {density!r} is not positive")
+            self._check(T0, self.substance.triple[1], "start state", given, T_only=True)
+            state = self._guard(lambda: _processes().flash_Tv(self.substance, T0, 1.0 / rho),
+                                "start state", given)
+            self.start = Leg("start", state.T, state.p, given, state=state)
+        else:
+            p0 = _parse("p", p, "start pressure", elevation, sub=self.substance)
+            self._check(T0, p0, "start state", {"T": T, "p": p})
+            self.start = Leg("start", T0, p0, {"T": T, "p": p})
         self.legs: list[Leg] = []
 
     # -- building ------------------------------------------------------------------------------
-    def isobar(self, T: object) -> Route:
-        """Add a constant-pressure leg to temperature ``T``; returns the route (chainable)."""
-        end = self.end
-        T1 = _parse("T", T, f"leg {len(self.legs) + 1} (isobar) temperature")
-        return self._add(Leg("isobar", T1, end.p, {"T": T}))
+    def isobar(self, T: object = None, *, until: str | None = None) -> Route:
+        """Add a constant-pressure leg to temperature ``T``, or until an event; chainable.
 
-    def isotherm(self, p: object) -> Route:
-        """Add a constant-temperature leg to pressure ``p``; returns the route (chainable)."""
-        end = self.end
-        p1 = _parse("p", p, f"leg {len(self.legs) + 1} (isotherm) pressure")
-        return self._add(Leg("isotherm", end.T, p1, {"p": p}))
+        ``until`` is one of "fully vapor", "fully liquid", "first liquid", "first vapor",
+        "first solid", "N K superheat" or "N K subcooling" (N a number).
+        """
+        where = f"leg {len(self.legs) + 1} (isobar)"
+        if until is not None:
+            return self._until("isobar", until, T, where)
+        T1 = _parse("T", T, f"{where} temperature", sub=self.substance)
+        return self._add(Leg("isobar", T1, self.end.p, {"T": T}))
+
+    def isotherm(self, p: object = None, *, until: str | None = None) -> Route:
+        """Add a constant-temperature leg to pressure ``p``, or until an event; chainable.
+
+        ``until`` is one of "fully liquid", "fully vapor", "first liquid", "first vapor" or
+        "first solid".
+        """
+        where = f"leg {len(self.legs) + 1} (isotherm)"
+        if until is not None:
+            return self._until("isotherm", until, p, where)
+        p1 = _parse("p", p, f"{where} pressure", self.elevation, sub=self.substance)
+        return self._add(Leg("isotherm", self.end.T, p1, {"p": p}))
+
+    def isochore(self, T: object = None, p: object = None) -> Route:
+        """Add a constant-volume leg (a sealed vessel) to temperature ``T`` or pressure ``p``."""
+        n = len(self.legs) + 1
+        where = f"leg {n} (isochore)"
+        if (T is None) == (p is None):
+            raise RouteError(f"{where}: give the end temperature T or the end pressure p, not both")
+        start = self.end_state()
+        rho = self._need(start.rho, where, start)
+        pr = _processes()
+        sub = self.substance
+        if T is not None:
+            T1 = _parse("T", T, f"{where} temperature", sub=self.substance)
+            given: dict[str, Any] = {"T": T}
+            self._check(T1, sub.triple[1], f"{where} end state", given, T_only=True)
+            end = self._guard(lambda: pr.flash_Tv(sub, T1, 1.0 / rho), f"{where} end state", given)
+        else:
+            p1 = _parse("p", p, f"{where} pressure", self.elevation, sub=self.substance)
+            given = {"p": p}
+            self._check(start.T, p1, f"{where} end state", given, p_only=True)
+            end = self._guard(lambda: _isochore_to_p(sub, start, rho, p1), f"{where} end state", given)
+        return self._add(Leg("isochore", end.T, end.p, given, state=end))
+
+    def isenthalp(self, p: object) -> Route:
+        """Add a constant-enthalpy leg (a valve or vent) to pressure ``p``; chainable."""
+        return self._constant("isenthalp", "h", p)
+
+    def isentrope(self, p: object) -> Route:
+        """Add a constant-entropy leg (an ideal compressor or expander) to pressure ``p``."""
+        return self._constant("isentrope", "s", p)
 
     def add(self, kind: str, **target: object) -> Route:
         """Add a leg by kind name: ``route.add("isobar", T=300)``."""
         if kind not in LEG_KINDS:
             raise RouteError(f"unknown leg kind {kind!r}; known: {', '.join(LEG_KINDS)}")
-        return getattr(self, kind)(**target)
+        try:
+            return getattr(self, kind)(**target)
+        except TypeError:
+            raise RouteError(
+                f"a {kind} leg does not take {', '.join(map(repr, target))}"
+            ) from None
+
+    def _constant(self, kind: str, prop: str, p: object) -> Route:
+        where = f"leg {len(self.legs) + 1} ({kind})"
+        start = self.end_state()
+        value = self._need(start.h if prop == "h" else start.s, where, start)
+        p1 = _parse("p", p, f"{where} pressure", self.elevation, sub=self.substance)
+        given = {"p": p}
+        self._check(start.T, p1, f"{where} end state", given, p_only=True)
+        sub = self.substance
+        end = self._guard(lambda: _processes().flash_p(sub, p1, prop, value),
+                          f"{where} end state", given)
+        return self._add(Leg(kind, end.T, end.p, given, state=end))
+
+    def _until(self, kind: str, until: str, target: object, where: str) -> Route:
+        if target is not None:
+            raise RouteError(f"{where}: give a target or an event (until=...), not both")
+        sub = self.substance
+        end = self.end
+        given = {"until": until}
+        T, p, phase, event = _resolve_event(sub, kind, end.T, end.p, until, where)
+        state = None
+        if phase is not None:
+            state = self._guard(lambda: _processes().single_state(sub, T, p, phase),
+                                f"{where} end state", given)
+        self._check(T, p, f"{where} end state", given)
+        return self._add(Leg(kind, T, p, given, state=state, event=event))
+
+    def _need(self, value: float | None, where: str, start: StatePoint) -> float:
+        if value is None:
+            raise RouteError(f"{where}: the state it starts from (T = {start.T:.6g} K, "
+                             f"p = {start.p:.6g} Pa, {start.phase}) has no model: {start.model}")
+        return value
+
+    def _guard(self, make: Any, where: str, given: dict[str, Any]) -> StatePoint:
+        try:
+            state = make()
+        except PhasePathError as exc:
+            raise _reraise(exc, where, _given_text(given)) from None
+        return state
+
+    def end_state(self) -> StatePoint:
+        """The state at the last corner, with h, s and density where a model covers it."""
+        leg = self.end
+        if leg.state is not None:
+            return leg.state
+        phase, form = self.substance.classify(leg.T, leg.p)
+        return _processes().single_state(self.substance, leg.T, leg.p, phase, form)
 
     def _add(self, leg: Leg) -> Route:
         end = self.end
@@ -116,9 +263,16 @@ class Route:
         self.legs.append(leg)
         return self
 
-    def _check(self, T: float, p: float, where: str, given: dict[str, Any]) -> None:
+    def _check(self, T: float, p: float, where: str, given: dict[str, Any],
+               T_only: bool = False, p_only: bool = False) -> None:
+        sub = self.substance
         try:
-            self.substance.check_state(T, p)
+            if T_only:  # only T is known yet: check it against the temperature range
+                sub.check_state(T, min(max(p, 1.0), sub.p_max))
+            elif p_only:  # only p is known yet
+                sub.check_state(min(max(T, sub.T_min), sub.T_max), p)
+            else:
+                sub.check_state(T, p)
         except PhasePathError as exc:
             raise _reraise(exc, where, _given_text(given)) from None
 
@@ -159,9 +313,16 @@ class Route:
     def reversed(self) -> Route:
         """The route run backwards: the last corner first, each leg undone in reverse order."""
         corners = self.corners()
-        out = Route(self.substance, T=corners[-1][0], p=corners[-1][1], title=self.title)
+        last = self.end
+        if last.state is not None and last.state.rho is not None and "+" in last.state.phase:
+            out = Route(self.substance, T=last.T, density=last.state.rho, title=self.title)
+        else:
+            out = Route(self.substance, T=corners[-1][0], p=corners[-1][1], title=self.title)
         for leg, (T, p) in zip(reversed(self.legs), reversed(corners[:-1])):
-            out.isobar(T=T) if leg.kind == "isobar" else out.isotherm(p=p)
+            if leg.kind in ("isobar", "isochore"):
+                out.add(leg.kind, T=T)
+            else:
+                out.add(leg.kind, p=p)
         return out
 
     def to_dict(self) -> dict[str, Any]:
@@ -170,6 +331,7 @@ class Route:
             "substance": self.substance if not _is_named(self.substance) else self.substance.name,
             "title": self.title,
             "notes": self.notes,
+            "elevation": self.elevation,
             "start": dict(self.start.given),
             "legs": [{"kind": leg.kind, **leg.given} for leg in self.legs],
         }
@@ -179,11 +341,26 @@ class Route:
         """Build a route from :meth:`to_dict` output."""
         start = data.get("start", {})
         route = cls(data["substance"], T=start.get("T"), p=start.get("p"),
+                    density=start.get("density"), elevation=data.get("elevation"),
                     title=data.get("title", ""), notes=data.get("notes", ""))
         for leg in data.get("legs", []):
             leg = dict(leg)
             route.add(leg.pop("kind"), **leg)
         return route
+
+    # -- files ---------------------------------------------------------------------------------
+    @classmethod
+    def load(cls, path: Any) -> Route:
+        """Read a route file (JSON or YAML); see :mod:`phasepath.io`."""
+        from .io import load_route
+
+        return load_route(path)
+
+    def save(self, path: Any) -> Any:
+        """Write this route to a route file (``.json``, ``.yaml``, ``.yml``); returns the path."""
+        from .io import save_route
+
+        return save_route(self, path)
 
 
 def _is_named(sub: Substance) -> bool:
@@ -193,3 +370,85 @@ def _is_named(sub: Substance) -> bool:
 
 def _given_text(given: dict[str, Any]) -> str:
     return ", ".join(f"{k}={v!r}" if isinstance(v, str) else f"{k}={v}" for k, v in given.items())
+
+
+def _processes() -> Any:
+    from . import processes
+
+    return processes
+
+
+def _isochore_to_p(sub: Substance, start: StatePoint, rho: float, p1: float) -> StatePoint:
+    """The state on the isochore through ``start`` where the pressure is p1."""
+    pr = _processes()
+
+    def gap(T: float) -> float:
+        try:
+            return pr.flash_Tv(sub, T, 1.0 / rho).p - p1
+        except OutOfRangeError:
+            return 1e300  # beyond the models: too high a pressure
+    lo, hi = (start.T, sub.T_max) if p1 > start.p else (sub.T_min, start.T)
+    if gap(lo) * gap(hi) > 0:
+        raise OutOfRangeError(
+            f"p = {p1!r} Pa is not reached at constant density {rho:.6g} kg/m3 of {sub.name} "
+            f"between {lo:.6g} K and {hi:.6g} K"
+        )
+    T1 = float(brentq(gap, lo, hi, xtol=1e-10, rtol=1e-13))
+    return pr.flash_Tv(sub, T1, 1.0 / rho)
+
+
+def _resolve_event(sub: Substance, kind: str, T: float, p: float, until: str, where: str
+                   ) -> tuple[float, float, str | None, str]:
+    """(T, p, end phase or None, event text) of a leg that ends on an event."""
+    text = until.strip().lower() if isinstance(until, str) else ""
+    m = _DELTA.match(text)
+    if text not in EVENTS and not m:
+        raise RouteError(f"{where}: unknown event {until!r}; known: {', '.join(EVENTS)}, "
+                         f"'N K superheat', 'N K subcooling'")
+    T_t, p_t = sub.triple
+    T_c, p_c = sub.critical
+    vapor = sub.vapor
+    if text == "first solid":
+        if kind == "isobar":
+            from .processes import _melting_T, _T_on
+
+            if p < p_t:
+                if sub.sublimation is None:
+                    raise RouteError(f"{where}: {sub.name} has no published sublimation curve")
+                T1 = _T_on(sub.sublimation, p)
+            else:
+                melt = _melting_T(sub, p)
+                if melt is None:
+                    raise RouteError(f"{where}: no melting curve of {sub.name} at p = {p:.6g} Pa")
+                T1 = melt[0]
+            return T1, p, None, f"first solid at T = {T1:.6g} K"
+        curves = [b for b in sub.melting if b.T_min <= T <= b.T_max] if T >= T_t else (
+            [sub.sublimation] if sub.sublimation is not None else [])
+        if not curves:
+            raise RouteError(f"{where}: no solid boundary of {sub.name} at T = {T:.6g} K")
+        p1 = min(b.p_of_T(T) for b in curves)
+        return T, p1, None, f"first solid at p = {p1:.6g} Pa"
+    if vapor is None:
+        raise RouteError(f"{where}: {sub.name} has no vapor-pressure curve")
+    if kind == "isobar":
+        if not p_t <= p < p_c:
+            raise RouteError(
+                f"{where}: {until!r} needs a pressure between the triple point ({p_t:.6g} Pa) "
+                f"and the critical point ({p_c:.6g} Pa); the leg is at {p:.6g} Pa"
+            )
+        T_s = vapor.temperatures_at(p)[0][0]
+        if m:
+            dT = float(m.group(1)) * (1 if m.group(2).lower() == "superheat" else -1)
+            return T_s + dT, p, None, f"{m.group(1)} K {m.group(2).lower()} (T_sat = {T_s:.6g} K)"
+        phase = "vapor" if text in ("fully vapor", "first liquid") else "liquid"
+        return T_s, p, phase, f"{text} at T = {T_s:.6g} K"
+    if m:
+        raise RouteError(f"{where}: {until!r} applies to a constant-pressure leg only")
+    if not T_t <= T <= T_c:
+        raise RouteError(
+            f"{where}: {until!r} needs a temperature between the triple point ({T_t:.6g} K) and "
+            f"the critical point ({T_c:.6g} K); the leg is at {T:.6g} K"
+        )
+    p_s = vapor.p_of_T(T)
+    phase = "vapor" if text in ("fully vapor", "first liquid") else "liquid"
+    return T, p_s, phase, f"{text} at p = {p_s:.6g} Pa"

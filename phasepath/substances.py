@@ -12,9 +12,11 @@ from __future__ import annotations
 
 import difflib
 import math
+import numbers
 import re
-from collections.abc import Callable
+from collections.abc import Callable, Mapping
 from functools import lru_cache
+from typing import Any
 
 from . import bibliography
 from .boundaries import Boundary
@@ -85,6 +87,8 @@ def substance(name: object) -> Substance:
     """
     if isinstance(name, Substance):
         return name
+    if isinstance(name, Mapping):  # a substance built from data, as saved in a route file
+        return Substance.from_dict(name)
     if not isinstance(name, str) or not name.strip():
         raise UnknownSubstanceError(name)
     key = _key(name)
@@ -202,7 +206,31 @@ class Substance:
         The sublimation curve, or None where no published curve exists.
     notes : tuple of str
         Plain-language notes on what the models do not cover.
+    source_data : phasepath.custom.SubstanceData or None
+        For a substance built by :meth:`from_data`: its inputs, fits and missing pieces.
     """
+
+    source_data: Any = None
+
+    @classmethod
+    def from_data(cls, name: str, **data: Any) -> Substance:
+        """A substance built from data-sheet numbers: see :func:`phasepath.custom.from_data`."""
+        from .custom import from_data
+
+        return from_data(name, **data)
+
+    @classmethod
+    def from_dict(cls, data: Mapping[str, Any]) -> Substance:
+        """The substance a :meth:`to_dict` mapping describes."""
+        from .custom import from_dict
+
+        return from_dict(data)
+
+    def to_dict(self) -> dict[str, Any]:
+        """Plain data: ``{"name": ...}``, or the inputs of :meth:`from_data` for such a substance."""
+        from .custom import to_dict
+
+        return to_dict(self)
 
     def __init__(
         self,
@@ -265,12 +293,16 @@ class Substance:
     def check_state(self, T: float, p: float) -> None:
         """Raise a phasepath error unless (T, p) lies where the models are valid."""
         for v, what in ((T, "T"), (p, "p")):
-            if not isinstance(v, (int, float)) or not math.isfinite(v):
-                raise NonFiniteError(f"{what} = {v!r} is not a finite number ({self.name})")
+            if not isinstance(v, numbers.Real) or isinstance(v, bool) or not math.isfinite(v):
+                raise NonFiniteError(f"{what} = {v!r} is not a finite number ({self.name}: "
+                                     f"valid T {self.T_min:g} K to {self.T_max:g} K, "
+                                     f"p above 0 Pa, up to {self.p_max:.6g} Pa)")
         if T <= 0.0:
-            raise OutOfRangeError(f"T = {T!r} K is not above absolute zero ({self.name})")
+            raise OutOfRangeError(f"T = {T!r} K is not above absolute zero ({self.name}: "
+                                  f"valid {self.T_min:g} K to {self.T_max:g} K)")
         if p <= 0.0:
-            raise OutOfRangeError(f"p = {p!r} Pa is not positive ({self.name})")
+            raise OutOfRangeError(f"p = {p!r} Pa is not positive ({self.name}: valid above 0 Pa, "
+                                  f"up to {self.p_max:.6g} Pa)")
         if T > self.T_max:
             raise OutOfRangeError(
                 f"T = {T!r} K is above the highest temperature the models of {self.name} cover: "

@@ -16,6 +16,7 @@ pressure a float in pascal.
 from __future__ import annotations
 
 import math
+import numbers
 import re
 from functools import lru_cache
 from typing import Any
@@ -51,7 +52,11 @@ _ALIASES = {
     "psia": "psi", "barа": "bar", "bara": "bar", "kg/m3": "kg/m**3", "kg/l": "kg/L",
     "g/cm3": "g/cm**3", "btu/lb": "Btu/lb",
 }
-_NUMBER = re.compile(r"^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*$")
+# Matched against stripped text only: no trailing ``\s*`` after a lazy group, which made the
+# match time grow with the square of the length of a run of blanks inside the text.
+_NUMBER = re.compile(r"([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*)", re.DOTALL)
+#: Longest unit text handed to pint (longer text is refused as an unknown unit).
+_MAX_UNIT_TEXT = 40
 
 
 @lru_cache(maxsize=1)
@@ -65,13 +70,15 @@ def _registry() -> Any:
 def _unit(text: str, dimension: str, original: str) -> Any:
     ureg = _registry()
     name = _ALIASES.get(text.strip().lower(), text.strip())
+    if len(name) > _MAX_UNIT_TEXT:
+        raise UnitError(f"unknown unit {_short(text)} in {_short(original)}")
     try:
         unit = ureg.Unit(name)
     except Exception:
-        raise UnitError(f"unknown unit {text!r} in {original!r}") from None
+        raise UnitError(f"unknown unit {text!r} in {_short(original)}") from None
     if unit.dimensionality != ureg.get_dimensionality(_DIM[dimension]):
         raise UnitError(
-            f"{original!r} is not a {dimension}: its unit {text!r} has dimension "
+            f"{_short(original)} is not a {dimension}: its unit {text!r} has dimension "
             f"{unit.dimensionality}"
         )
     return unit
@@ -79,8 +86,29 @@ def _unit(text: str, dimension: str, original: str) -> Any:
 
 def _finite(x: float, original: object, what: str) -> float:
     if not math.isfinite(x):
-        raise NonFiniteError(f"{what} {original!r} is not a finite number")
+        raise NonFiniteError(f"{what} {_short(original)} is not a finite number")
     return x
+
+
+def _short(value: object, limit: int = 60) -> str:
+    """repr of a value as the user gave it, cut short in the middle when very long."""
+    text = repr(value)
+    return text if len(text) <= limit else f"{text[:limit // 2]}…{text[-limit // 2:]} ({len(text)} characters)"
+
+
+def _float(value: object, what: str) -> float:
+    try:
+        return float(value)  # type: ignore[arg-type]
+    except OverflowError:
+        raise NonFiniteError(f"{what} {_short(value)} is too large to be a number") from None
+
+
+def _to_si(mag: float, unit: Any, dimension: str, original: object) -> float:
+    try:
+        x = float(_registry().Quantity(mag, unit).to(_SI[dimension]).magnitude)
+    except (ArithmeticError, ValueError):
+        x = math.nan
+    return _finite(x, original, dimension)
 
 
 def parse_quantity(value: object, dimension: str, default_unit: str | None = None) -> float:
@@ -99,36 +127,36 @@ def parse_quantity(value: object, dimension: str, default_unit: str | None = Non
         raise NonFiniteError(f"{what} is missing (got None)")
     if isinstance(value, bool):
         raise UnitError(f"{what} {value!r} is not a number")
-    if isinstance(value, (int, float)):
-        x = _finite(float(value), value, what)
+    if isinstance(value, numbers.Real):
+        x = _finite(_float(value, what), value, what)
         if default_unit is None:
             return x
-        return convert(x, default_unit, _SI[dimension], dimension)
+        return _finite(convert(x, default_unit, _SI[dimension], dimension), value, what)
     if hasattr(value, "magnitude") and hasattr(value, "units"):
-        mag = float(value.magnitude)
+        mag = _float(value.magnitude, what)
         _finite(mag, value, what)
         unit = _unit(str(value.units), dimension, str(value))
-        return float(_registry().Quantity(mag, unit).to(_SI[dimension]).magnitude)
+        return _to_si(mag, unit, dimension, value)
     if isinstance(value, str):
         text = value.strip()
         if not text:
             raise NonFiniteError(f"{what} is empty (got {value!r})")
-        m = _NUMBER.match(text)
+        m = _NUMBER.fullmatch(text)
         if m is None:
             low = text.lower()
             if low in ("nan", "inf", "-inf", "+inf", "infinity", "-infinity"):
                 raise NonFiniteError(f"{what} {value!r} is not a finite number")
-            raise UnitError(f"cannot read {what} {value!r}: expected a number and a unit, "
+            raise UnitError(f"cannot read {what} {_short(value)}: expected a number and a unit, "
                             f"such as '25 degC' or '60 bar'")
-        mag = float(m.group(1))
+        mag = _finite(float(m.group(1)), value, what)
         unit_text = m.group(2)
         if not unit_text:
             if default_unit is None:
                 return mag
-            return convert(mag, default_unit, _SI[dimension], dimension)
+            return _finite(convert(mag, default_unit, _SI[dimension], dimension), value, what)
         unit = _unit(unit_text, dimension, value)
-        return float(_registry().Quantity(mag, unit).to(_SI[dimension]).magnitude)
-    raise UnitError(f"{what} {value!r} is not a number, a string with a unit or a quantity")
+        return _to_si(mag, unit, dimension, value)
+    raise UnitError(f"{what} {_short(value)} is not a number, a string with a unit or a quantity")
 
 
 def parse_temperature(value: object, default_unit: str | None = None) -> float:

@@ -1,0 +1,447 @@
+"""phasepath benchmarks: one command, every figure of the performance section.
+
+    python benchmarks/run.py            # full run (a few minutes on a busy 2-core machine)
+    python benchmarks/run.py --quick    # fewer repeats, no browser, smaller batch
+
+Every time is the median of repeated runs in this process (wall clock, ``time.perf_counter``);
+on a shared machine single runs are noisy, medians much less so. Ratios are measured side by
+side in the same process, so they carry over between machines better than absolute times.
+
+What is measured
+----------------
+1. Two 10-leg routes (CO2 and water) that cross every kind of boundary, analysed by phasepath,
+   against a dense scan: 2,000 points per leg, at each point every boundary covering its
+   temperature looked up directly (CoolProp's low-level ``AbstractState`` for vapor pressure
+   and melting, the published equation for water's ices and the sublimation curves), a
+   crossing wherever the side of a boundary changes between neighbouring points. Both methods'
+   crossings are compared with the exact root of the same boundary equation (``brentq`` to
+   machine precision inside the scan's bracket).
+2. Property evaluations per crossing, counted (boundary equations and EOS calls).
+3. First draw of a substance's diagram (substance loaded, boundary curves computed, diagram
+   widget built) and a redraw from the caches.
+4. The planner's drag-end-to-table time without a browser (a corner of the drawn route moved
+   from Python, as the browser's drag-end message does) and, unless ``--quick``, the
+   click-to-table time of the real-browser test.
+5. Peak resident memory of a 1,000-route batch (``pp.analyze_many``) in a fresh process.
+"""
+
+from __future__ import annotations
+
+import argparse
+import gc
+import math
+import os
+import re
+import shutil
+import statistics
+import subprocess
+import sys
+import textwrap
+import time
+from collections.abc import Callable
+from pathlib import Path
+
+REPO = Path(__file__).resolve().parents[1]
+try:
+    import phasepath as pp
+except ImportError:  # run from a clone without installing: use the clone's package
+    sys.path.insert(0, str(REPO))
+    import phasepath as pp
+
+import CoolProp.CoolProp as CP
+import numpy as np
+from scipy.optimize import brentq
+
+from phasepath import analysis
+
+SCAN_POINTS = 2000
+
+
+# -- the scenarios ---------------------------------------------------------------------------------
+def co2_route() -> pp.Route:
+    """Fictional pilot loop of Brightwater Extracts, CO2: condensation, vaporization,
+    supercritical entry and exit, freezing, melting, deposition and sublimation."""
+    r = pp.Route("CO2", T=250.0, p=10e5, title="Brightwater pilot loop (benchmark)")
+    r.isotherm(p=60e5).isobar(T=300.0).isotherm(p=100e5).isobar(T=320.0).isotherm(p=50e5)
+    r.isobar(T=230.0).isotherm(p=3000e5).isotherm(p=2e5).isobar(T=180.0).isotherm(p=0.1e5)
+    return r
+
+
+def water_route() -> pp.Route:
+    """Fictional test cell of Kestrel Cold Labs, water: boiling, condensing, ice Ih, ice VI,
+    sublimation and deposition at low pressure."""
+    r = pp.Route("water", T=300.0, p=1e5, title="Kestrel test cell (benchmark)")
+    r.isobar(T=400.0).isotherm(p=5e5).isobar(T=260.0).isotherm(p=300e6).isotherm(p=100.0)
+    r.isobar(T=240.0).isotherm(p=1e3).isobar(T=285.0).isotherm(p=950e6).isobar(T=400.0)
+    return r
+
+
+# -- timing ------------------------------------------------------------------------------------------
+def median_time(fn: Callable[[], object], repeats: int, setup: Callable[[], object] | None = None
+                ) -> float:
+    """Median wall time of ``fn()`` [s] over ``repeats`` runs (``setup`` runs untimed before each)."""
+    times = []
+    for _ in range(repeats):
+        if setup is not None:
+            setup()
+        t = time.perf_counter()
+        fn()
+        times.append(time.perf_counter() - t)
+    return statistics.median(times)
+
+
+def fmt_t(seconds: float) -> str:
+    if seconds >= 1.0:
+        return f"{seconds:.2f} s"
+    if seconds >= 1e-3:
+        return f"{seconds * 1e3:.2f} ms"
+    return f"{seconds * 1e6:.0f} µs"
+
+
+# -- the dense-scan baseline ----------------------------------------------------------------------
+class Scan:
+    """The hand-written alternative: look up every boundary at every point of a dense grid."""
+
+    def __init__(self, sub: pp.Substance) -> None:
+        self.sub = sub
+        self.state = CP.AbstractState("HEOS", sub.name)
+        self.branches: list[tuple[pp.boundaries.Boundary, Callable[[float], float]]] = []
+        for b in sub.boundaries:
+            self.branches.append((b, self._lookup(b)))
+
+    def _lookup(self, b: pp.boundaries.Boundary) -> Callable[[float], float]:
+        """The fastest direct look-up of a branch that gives the same numbers as phasepath's."""
+        a = self.state
+        T_mid = 0.5 * (b.T_min + b.T_max)
+        if b.kind == "vaporization" and b.source == "CoolProp":
+            def p_sat(T: float) -> float:
+                a.update(CP.QT_INPUTS, 0.0, T)
+                return a.p()
+            candidate = p_sat
+        elif b.kind == "melting" and b.source == "CoolProp":
+            shift = b.p_of_T(T_mid) - a.melting_line(CP.iP, CP.iT, T_mid)
+
+            def p_melt(T: float) -> float:
+                return a.melting_line(CP.iP, CP.iT, T) + shift
+            candidate = p_melt
+        else:
+            return b.p_of_T  # a published equation CoolProp does not carry
+        for T in np.linspace(b.T_min, b.T_max, 7)[1:-1]:
+            if not math.isclose(candidate(float(T)), b.p_of_T(float(T)), rel_tol=1e-12):
+                return b.p_of_T
+        return candidate
+
+    def leg(self, kind: str, T0: float, p0: float, T1: float, p1: float, n: int = SCAN_POINTS
+            ) -> tuple[list[tuple[str, float, float, Callable[[float], float], str]], int]:
+        """Brackets [(label, x_a, x_b, look-up, kind)] where a boundary's side changes; look-ups."""
+        if kind == "isobar":
+            xs = np.linspace(T0, T1, n)
+            Ts, ps = xs, np.full(n, p0)
+        else:  # pressure spans decades: equal ratios, as anyone scanning by hand would
+            xs = np.geomspace(p0, p1, n)
+            Ts, ps = np.full(n, T0), xs
+        out = []
+        lookups = 0
+        for b, f in self.branches:
+            inside = np.nonzero((Ts >= b.T_min) & (Ts <= b.T_max))[0]
+            if len(inside) < 2:
+                continue
+            pb = np.array([f(t) for t in Ts[inside].tolist()])
+            lookups += len(inside)
+            above = ps[inside] > pb
+            for k in np.nonzero(above[1:] != above[:-1])[0]:
+                i, j = inside[k], inside[k + 1]
+                if j == i + 1:
+                    out.append((b.label, float(xs[i]), float(xs[j]), f, kind))
+        T_c, p_c = self.sub.critical
+        sc = (Ts > T_c) & (ps > p_c)
+        for i in np.nonzero(sc[1:] != sc[:-1])[0]:
+            out.append(("critical", float(xs[i]), float(xs[i + 1]), None, kind))  # type: ignore[arg-type]
+        return out, lookups
+
+    def route(self, route: pp.Route) -> tuple[list[tuple[int, str, float, float, Callable, str]], int]:
+        corners = route.corners()
+        found, total = [], 0
+        for i, leg in enumerate(route.legs):
+            brackets, n = self.leg(leg.kind, *corners[i], *corners[i + 1])
+            total += n
+            found += [(i + 1, *b) for b in brackets]
+        return found, total
+
+
+def exact_root(kind: str, fixed: float, f: Callable[[float], float] | None, a: float, b: float,
+               sub: pp.Substance) -> float:
+    """The exact crossing on a leg: the boundary evaluated at the fixed T (isotherm), or the root
+    of p_b(T) = p inside [a, b] to machine precision (isobar)."""
+    T_c, p_c = sub.critical
+    if f is None:  # the critical isotherm or isobar
+        return T_c if kind == "isobar" else p_c
+    if kind == "isotherm":
+        return f(fixed)
+    return brentq(lambda t: f(t) - fixed, min(a, b), max(a, b), xtol=1e-300, rtol=8.9e-16,
+                  maxiter=200)
+
+
+def accuracy(route: pp.Route, report: pp.Report, scan: Scan
+             ) -> tuple[list[float], list[float], list[float], int, int]:
+    """Relative errors of scan midpoints, scan linear interpolation, phasepath crossings."""
+    sub = route.substance
+    found, _ = scan.route(route)
+    corners = route.corners()
+    err_mid, err_lin, err_pp = [], [], []
+    matched = 0
+    for step, label, xa, xb, f, kind in found:
+        leg_T, leg_p = corners[step]  # end corner: its fixed coordinate equals the leg's
+        fixed = leg_p if kind == "isobar" else leg_T
+        x_ref = exact_root(kind, fixed, f, xa, xb, sub)
+        mid = 0.5 * (xa + xb) if kind == "isobar" else math.sqrt(xa * xb)
+        err_mid.append(abs(mid - x_ref) / x_ref)
+        if f is not None:  # the side function g changes sign between xa and xb
+            def g(x: float) -> float:
+                return f(x) - fixed if kind == "isobar" else x - f(fixed)
+            ga, gb = g(xa), g(xb)
+            lin = xa + (xb - xa) * ga / (ga - gb)
+            err_lin.append(abs(lin - x_ref) / x_ref)
+        # the phasepath crossing on the same leg nearest to this one
+        mine = [c for c in report.crossings if c.step == step]
+        if mine:
+            c = min(mine, key=lambda c: abs((c.T if kind == "isobar" else c.p) - x_ref))
+            x_pp = c.T if kind == "isobar" else c.p
+            if abs(x_pp - x_ref) <= abs(xb - xa):
+                matched += 1
+                err_pp.append(abs(x_pp - x_ref) / x_ref)
+    return err_mid, err_lin, err_pp, len(found), matched
+
+
+# -- counting property evaluations ----------------------------------------------------------------
+def count_evaluations(route: pp.Route) -> dict[str, float]:
+    """Boundary-equation and EOS calls of one cold analysis of ``route``."""
+    sub = route.substance
+    counts = {"boundary": 0}
+    saved = []
+    for b in sub.boundaries:
+        saved.append((b, b.p_of_T, b.T_of_p))
+
+        def wrap(f: Callable[[float], float]) -> Callable[[float], float]:
+            def counted(x: float) -> float:
+                counts["boundary"] += 1
+                return f(x)
+            return counted
+        b.p_of_T = wrap(b.p_of_T)
+        if b.T_of_p is not None:
+            b.T_of_p = wrap(b.T_of_p)
+    try:
+        analysis.cache_clear()
+        eos0 = sub.eos.calls if sub.eos is not None else 0
+        report = route.analyze()
+        eos = (sub.eos.calls - eos0) if sub.eos is not None else 0
+    finally:
+        for b, p_of_T, T_of_p in saved:
+            b.p_of_T, b.T_of_p = p_of_T, T_of_p
+        analysis.cache_clear()
+    located = [c.evaluations for c in report.crossings if not c.at_corner]
+    n = max(len(report.crossings), 1)
+    return {
+        "crossings": len(report.crossings),
+        "locate_max": max(located, default=0),
+        "locate_mean": statistics.mean(located) if located else 0.0,
+        "boundary_per_crossing": counts["boundary"] / n,
+        "eos_per_crossing": eos / n,
+        "boundary": counts["boundary"],
+        "eos": eos,
+    }
+
+
+# -- sections ----------------------------------------------------------------------------------------
+def section_routes(repeats: int, scan_repeats: int) -> list[str]:
+    lines = ["", "1. Ten-leg routes: phasepath against a dense scan of 2,000 points per leg", ""]
+    for make in (co2_route, water_route):
+        route = make()
+        sub = route.substance
+        for b in sub.boundaries:
+            b.sample()  # per-substance precomputation, measured in section 3
+        scan = Scan(sub)
+        report = route.analyze()
+        t_scan = median_time(lambda: scan.route(route), scan_repeats)
+        _, lookups = scan.route(route)
+        t_cold = median_time(route.analyze, repeats, setup=analysis.cache_clear)
+        route.analyze()
+        t_warm = median_time(route.analyze, repeats)
+        err_mid, err_lin, err_pp, n_scan, matched = accuracy(route, report, scan)
+        ev = count_evaluations(route)
+        kinds = sorted({c.kind for c in report.crossings})
+        lines += [
+            f"   {sub.name}: {len(route.legs)} legs, {len(report.crossings)} crossings "
+            f"({', '.join(kinds)})",
+            f"     dense scan ({lookups:,} look-ups):        {fmt_t(t_scan):>10}   median of "
+            f"{scan_repeats}",
+            f"     phasepath analyze(), legs not cached: {fmt_t(t_cold):>10}   median of {repeats}"
+            f"   -> {t_scan / t_cold:,.0f}x faster than the scan",
+            f"     phasepath analyze(), legs cached:     {fmt_t(t_warm):>10}   "
+            f"-> {t_scan / t_warm:,.0f}x",
+            f"     crossing error vs exact boundary (relative, max over {n_scan} scan crossings):",
+            f"       scan, midpoint of bracketing points:   {max(err_mid):.1e}  "
+            f"(median {statistics.median(err_mid):.1e})",
+            f"       scan, linear interpolation:            {max(err_lin):.1e}  "
+            f"(median {statistics.median(err_lin):.1e})",
+            f"       phasepath ({matched} matched):             {max(err_pp):.1e}  "
+            f"(median {statistics.median(err_pp):.1e})",
+            "     property evaluations per crossing:",
+            f"       to locate it (recorded, counted): max {ev['locate_max']}, "
+            f"mean {ev['locate_mean']:.2f}",
+            f"       whole analysis: {ev['boundary']} boundary-equation calls + {ev['eos']} EOS "
+            f"calls for {ev['crossings']} crossings = "
+            f"{ev['boundary_per_crossing']:.1f} + {ev['eos_per_crossing']:.1f} per crossing",
+            "",
+        ]
+    return lines
+
+
+def section_draw(repeats: int) -> list[str]:
+    from phasepath import substances as subs_mod
+
+    lines = ["3. Diagram drawing (substance loaded, boundary curves computed)", ""]
+    try:
+        from phasepath.widgets.diagram import PhaseDiagram
+    except Exception as exc:  # the widget layer is optional for this figure
+        PhaseDiagram = None
+        lines.append(f"   (diagram widget not importable: {exc}; core curves only)")
+
+    for name in ("CO2", "water"):
+        def cold_core() -> object:
+            sub = pp.substance(name)
+            return [b.curve(0.0, sub.p_max) for b in sub.boundaries]
+
+        def cold_draw() -> object:
+            sub = pp.substance(name)
+            d = PhaseDiagram("degC", "bar")
+            d.set_substance(sub)
+            return d
+
+        def forget() -> None:
+            subs_mod._coolprop_substance.cache_clear()
+            gc.collect()
+
+        t_core = median_time(cold_core, repeats, setup=forget)
+        t_core_warm = median_time(cold_core, repeats * 4)
+        row = [f"   {pp.substance(name).name}: first load + curves {fmt_t(t_core)}, "
+               f"cached {fmt_t(t_core_warm)}"]
+        if PhaseDiagram is not None:
+            t_draw = median_time(cold_draw, repeats, setup=forget)
+            d = cold_draw()
+            sub = pp.substance(name)
+            t_redraw = median_time(lambda: d.set_substance(sub), repeats * 4)
+            row.append(f"; diagram widget first draw {fmt_t(t_draw)}, "
+                       f"cached redraw {fmt_t(t_redraw)}")
+        lines.append("".join(row))
+    return lines + [""]
+
+
+def section_drag(repeats: int, browser: bool) -> list[str]:
+    lines = ["4. Planner: drag-end to updated table", ""]
+    try:
+        from phasepath.widgets import RoutePlanner
+    except Exception as exc:
+        return lines + [f"   planner not importable ({exc}): not measured", ""]
+    planner = RoutePlanner(route=co2_route())
+    c = planner.diagram.corners
+    i = 5  # a middle corner: two legs change, eight are unchanged
+    x0, y0 = list(c.x), list(c.y)
+    times, updated = [], 0
+    for k in range(repeats):
+        x, y = list(x0), list(y0)
+        x[i] = x0[i] + 0.01 * (k + 1)  # a new place every time: nothing cached for it
+        before = planner.results.value
+        t = time.perf_counter()
+        with c.hold_trait_notifications():
+            c.x, c.y = np.array(x, dtype=float), np.array(y, dtype=float)
+        times.append(time.perf_counter() - t)
+        updated += planner.results.value != before
+    lines.append(f"   without a browser (CO2 route, corner {i} of 10 moved): median "
+                 f"{fmt_t(statistics.median(times))} over {repeats} drags; table updated "
+                 f"{updated}/{repeats} times")
+    if browser:
+        lines.append("   " + browser_click_to_table())
+    return lines + [""]
+
+
+def browser_click_to_table() -> str:
+    test = REPO / "tests" / "browser" / "test_planner_browser.py"
+    if not test.exists() or not (shutil.which("chromium") or Path("/usr/bin/chromium").exists()):
+        return "in the real browser: not measured (no browser test or no chromium here)"
+    cmd = [sys.executable, "-m", "pytest", "-q", "-s", "-p", "no:cacheprovider", str(test),
+           "-k", "click"]
+    try:
+        out = subprocess.run(cmd, cwd=REPO, capture_output=True, text=True, timeout=600)
+    except subprocess.TimeoutExpired:
+        return "in the real browser: the browser test timed out"
+    found = re.findall(r"click-to-table time \(browser, Voila\): (\d+) ms", out.stdout)
+    if not found:
+        tail = (out.stdout + out.stderr).strip().splitlines()[-1:] or ["no output"]
+        return f"in the real browser: no figure printed ({tail[0]})"
+    return f"in the real browser (Voila + headless chromium, one click): {found[-1]} ms"
+
+
+_BATCH_CHILD = textwrap.dedent("""
+    import resource, sys, time
+    sys.path.insert(0, sys.argv[3])
+    import phasepath as pp
+    n, workers = int(sys.argv[1]), int(sys.argv[2])
+    def route(k):
+        p0 = 8e5 + 4e5 * (k % 25)          # start pressure swept
+        T2 = 280.0 + 0.05 * k              # heating target swept
+        r = pp.Route("CO2", T=250.0, p=p0).isotherm(p=60e5).isobar(T=T2)
+        return r.isotherm(p=3e5).isobar(T=190.0).isotherm(p=0.5e5)
+    routes = [route(k) for k in range(n)]
+    pp.substance("CO2").vapor.sample()
+    base = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
+    t = time.perf_counter()
+    reports = pp.analyze_many(routes, workers=None if workers == 1 else workers, progress=False)
+    dt = time.perf_counter() - t
+    peak = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
+    child = resource.getrusage(resource.RUSAGE_CHILDREN).ru_maxrss
+    print(base, peak, child, dt, sum(len(r.crossings) for r in reports))
+""")
+
+
+def section_memory(n: int) -> list[str]:
+    lines = [f"5. Batch of {n:,} five-leg CO2 routes (pp.analyze_many), fresh process each", ""]
+    for workers in (1, 2):
+        out = subprocess.run([sys.executable, "-c", _BATCH_CHILD, str(n), str(workers),
+                              str(REPO)], capture_output=True, text=True, timeout=1800)
+        if out.returncode != 0:
+            lines.append(f"   workers={workers}: failed: {out.stderr.strip().splitlines()[-1:]}")
+            continue
+        base, peak, child, dt, ncross = out.stdout.split()
+        base_mb, peak_mb, child_mb = int(base) / 1024, int(peak) / 1024, int(child) / 1024
+        what = "in this process" if workers == 1 else f"{workers} worker processes"
+        extra = f", largest worker {child_mb:.0f} MB" if workers > 1 else ""
+        lines.append(f"   {what}: {float(dt):.2f} s ({n / float(dt):,.0f} routes/s, "
+                     f"{ncross} crossings); peak RSS {peak_mb:.0f} MB (after import and "
+                     f"before the batch {base_mb:.0f} MB, +{peak_mb - base_mb:.0f} MB){extra}")
+    return lines + [""]
+
+
+def main(argv: list[str] | None = None) -> int:
+    ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    ap.add_argument("--quick", action="store_true",
+                    help="fewer repeats, a 200-route batch, no browser")
+    ap.add_argument("--no-browser", action="store_true", help="skip the real-browser figure")
+    args = ap.parse_args(argv)
+    repeats, scan_repeats = (15, 3) if args.quick else (101, 9)
+    print(f"phasepath {pp.__version__} benchmarks  (python {sys.version.split()[0]}, "
+          f"CoolProp {CP.get_global_param_string('version')}, {os.cpu_count()} CPUs; "
+          f"times are medians of repeated runs)")
+    for line in section_routes(repeats, scan_repeats):
+        print(line, flush=True)
+    for line in section_draw(5 if args.quick else 21):
+        print(line, flush=True)
+    for line in section_drag(10 if args.quick else 41, browser=not (args.quick or args.no_browser)):
+        print(line, flush=True)
+    for line in section_memory(200 if args.quick else 1000):
+        print(line, flush=True)
+    return 0
+
+
+if __name__ == "__main__":
+    raise SystemExit(main())

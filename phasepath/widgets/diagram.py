@@ -1,0 +1,305 @@
+"""The phase diagram figure: boundary curves, special points, region names, the route and its crossings.
+
+Temperature runs on a linear axis and pressure on a logarithmic one, both in the display units the
+planner is set to. The figure holds no state of its own: the planner hands it SI values (K, Pa) and
+it converts them for drawing. Boundary curves come from the core's cached samples, converted once
+per (substance, units) and kept here.
+"""
+
+from __future__ import annotations
+
+import math
+from functools import lru_cache
+from typing import Any
+
+import bqplot as bq
+import ipywidgets as W
+import numpy as np
+
+from ..report import UNIT_LABELS
+from ..substances import Substance
+from ..units import convert
+
+__all__ = ["PhaseDiagram", "STYLE", "to_display", "from_display"]
+
+#: Colours and marks of the diagram. The colours are drawn from a palette chosen to stay distinct
+#: for the common forms of colour-blindness; every curve also differs by its dash pattern, so the
+#: diagram reads in greyscale print.
+STYLE: dict[str, dict[str, Any]] = {
+    "vaporization": {"color": "#0b5fa5", "dash": "solid", "width": 2.5, "label": "vapor pressure"},
+    "melting": {"color": "#b34700", "dash": "dashed", "width": 2.5, "label": "melting"},
+    "sublimation": {"color": "#2a7d5f", "dash": "dash_dotted", "width": 2.5,
+                    "label": "sublimation"},
+    "route": {"color": "#1d1d1f", "width": 3.0},
+    "route_invalid": {"color": "#8a8a8a", "width": 2.0},
+    "corner": {"fill": "#ffffff", "start": "#1d1d1f", "stroke": "#1d1d1f"},
+    "crossing": {"fill": "#f2b01e", "stroke": "#1d1d1f", "marker": "diamond"},
+    "triple": {"fill": "#1d1d1f", "marker": "triangle-up"},
+    "critical": {"fill": "#ffffff", "marker": "square"},
+    "region": {"color": "#7a7a7a"},
+}
+
+_CSS = """
+<style>
+.pp-diagram path.line, .pp-diagram text, .pp-diagram .label { pointer-events: none; }
+.pp-diagram .plotarea_events { cursor: crosshair; }
+.pp-diagram.pp-pan .plotarea_events { cursor: move; }
+</style>
+"""
+
+
+def to_display(T: Any, p: Any, T_unit: str, p_unit: str) -> tuple[np.ndarray, np.ndarray]:
+    """SI arrays (K, Pa) -> display units (linear in T, scale factor in p)."""
+    T = np.asarray(T, dtype=float)
+    p = np.asarray(p, dtype=float)
+    a, b = _linear("temperature", "K", T_unit)
+    _, c = _linear("pressure", "Pa", p_unit)
+    return a + b * T, c * p
+
+
+def from_display(x: float, y: float, T_unit: str, p_unit: str) -> tuple[float, float]:
+    """Display units -> SI (K, Pa)."""
+    a, b = _linear("temperature", "K", T_unit)
+    _, c = _linear("pressure", "Pa", p_unit)
+    return (float(x) - a) / b, float(y) / c
+
+
+@lru_cache(maxsize=64)
+def _linear(dimension: str, si: str, unit: str) -> tuple[float, float]:
+    """(offset, factor) with display = offset + factor * SI (exact for these affine units)."""
+    a = convert(0.0, si, unit, dimension)
+    b = convert(1.0, si, unit, dimension) - a
+    return a, b
+
+
+class PhaseDiagram:
+    """The bqplot figure of one substance's P-T diagram with a route drawn on it.
+
+    The route's corners are a Scatter whose clicks add points (``"click": "add"``) and whose
+    points can be dragged; the planner observes that Scatter's ``x`` and ``y``.
+    """
+
+    def __init__(self, T_unit: str = "degC", p_unit: str = "bar") -> None:
+        self.T_unit, self.p_unit = T_unit, p_unit
+        self.sx = bq.LinearScale()
+        self.sy = bq.LogScale()
+        sc = {"x": self.sx, "y": self.sy}
+        self.ax = bq.Axis(scale=self.sx, label="", tick_format=".0f", grid_lines="dashed",
+                          grid_color="#e3e3e3", label_offset="36px", num_ticks=8)
+        self.ay = bq.Axis(scale=self.sy, orientation="vertical", label="", tick_format=".0e",
+                          grid_lines="dashed", grid_color="#e3e3e3", label_offset="52px")
+        empty = np.array([], dtype=float)
+        self.curves: list[bq.Lines] = []  # rebuilt per substance
+        self.regions = bq.Label(x=empty, y=empty, text=[], scales=sc, colors=[STYLE["region"]["color"]],
+                                font_size=15, font_weight="bold", align="middle",
+                                enable_hover=False, apply_clip=True)
+        self.route_line = bq.Lines(x=empty, y=empty, scales=sc, colors=[STYLE["route"]["color"]],
+                                   stroke_width=STYLE["route"]["width"], enable_hover=False)
+        self.triple = bq.Scatter(x=empty, y=empty, scales=sc, marker=STYLE["triple"]["marker"],
+                                 colors=[STYLE["triple"]["fill"]], stroke="#1d1d1f",
+                                 default_size=110, enable_hover=True, tooltip=W.HTML())
+        self.critical = bq.Scatter(x=empty, y=empty, scales=sc, marker=STYLE["critical"]["marker"],
+                                   colors=[STYLE["critical"]["fill"]], stroke="#1d1d1f",
+                                   stroke_width=2.0, default_size=90, enable_hover=True,
+                                   tooltip=W.HTML())
+        self.crossings = bq.Scatter(x=empty, y=empty, scales=sc, marker=STYLE["crossing"]["marker"],
+                                    colors=[STYLE["crossing"]["fill"]],
+                                    stroke=STYLE["crossing"]["stroke"], stroke_width=1.5,
+                                    default_size=110, enable_hover=True, tooltip=W.HTML())
+        self.corners = bq.Scatter(x=empty, y=empty, scales=sc, marker="circle",
+                                  colors=[STYLE["corner"]["fill"]], stroke=STYLE["corner"]["stroke"],
+                                  stroke_width=2.0, default_size=70, names=[], display_names=True,
+                                  enable_move=True, interactions={"click": "add"},
+                                  enable_hover=True, tooltip=W.HTML(), drag_size=1.6)
+        self.figure = bq.Figure(
+            marks=[self.regions, self.route_line, self.crossings, self.triple, self.critical, self.corners],
+            axes=[self.ax, self.ay], display_toolbar=False, animation_duration=0,
+            fig_margin={"top": 16, "bottom": 48, "left": 72, "right": 16},
+            layout=W.Layout(width="100%", height="460px", min_width="420px"),
+            padding_x=0.0, padding_y=0.0,
+        )
+        self.figure.add_class("pp-diagram")
+        self.css = W.HTML(_CSS, layout=W.Layout(height="0px", overflow="hidden"))
+        self._pan = bq.interacts.PanZoom(scales={"x": [self.sx], "y": [self.sy]})
+        self.substance: Substance | None = None
+        self._boundary_si: list[tuple[str, np.ndarray, np.ndarray]] = []
+        self._special_si: list[tuple[str, float, float]] = []
+        self._region_si: list[tuple[str, float, float]] = []
+
+    # -- substance ---------------------------------------------------------------------------
+    def set_substance(self, sub: Substance) -> None:
+        """Draw the boundary curves, special points and region names of ``sub``."""
+        self.substance = sub
+        self._boundary_si = []
+        for b in sub.boundaries:
+            T, p = b.curve(0.0, sub.p_max)
+            if len(T) >= 2:
+                self._boundary_si.append((b.kind, T, p))
+        self._special_si = [("triple point", *sub.triple), ("critical point", *sub.critical)]
+        self._region_si = _region_positions(sub, self.default_window(sub))
+        sc = {"x": self.sx, "y": self.sy}
+        self.curves = []
+        for kind, _T, _p in self._boundary_si:
+            st = STYLE[kind]
+            self.curves.append(bq.Lines(x=np.array([0.0, 1.0]), y=np.array([1.0, 2.0]), scales=sc,
+                                        colors=[st["color"]], line_style=st["dash"],
+                                        stroke_width=st["width"], enable_hover=False))
+        self.figure.marks = (self.curves + [self.regions, self.route_line, self.crossings,
+                                            self.triple, self.critical, self.corners])
+        self.redraw_static()
+
+    def redraw_static(self) -> None:
+        """Boundary curves, points and region names in the current units."""
+        if self.substance is None:
+            return
+        for line, (_kind, T, p) in zip(self.curves, self._boundary_si):
+            x, y = to_display(T, p, self.T_unit, self.p_unit)
+            line.x, line.y = x, y
+        for mark, (name, T, p) in zip((self.triple, self.critical), self._special_si):
+            x, y = to_display([T], [p], self.T_unit, self.p_unit)
+            mark.x, mark.y = x, y
+            mark.tooltip.value = (f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>"
+                                  f"{self.fmt_p(p)}</div>")
+        rx, ry = to_display([r[1] for r in self._region_si], [r[2] for r in self._region_si],
+                            self.T_unit, self.p_unit)
+        self.regions.x, self.regions.y = rx, ry
+        self.regions.text = [r[0] for r in self._region_si]
+        self.ax.label = f"Temperature [{UNIT_LABELS[self.T_unit]}]"
+        self.ay.label = f"Pressure [{UNIT_LABELS[self.p_unit]}]"
+
+    # -- units ---------------------------------------------------------------------------------
+    def set_units(self, T_unit: str, p_unit: str) -> None:
+        """Switch display units, keeping the visible window."""
+        window = self.window()
+        self.T_unit, self.p_unit = T_unit, p_unit
+        self.redraw_static()
+        if window is not None:
+            self.set_window(*window)
+
+    def fmt_T(self, T: float) -> str:
+        return f"{convert(T, 'K', self.T_unit, 'temperature'):.2f} {UNIT_LABELS[self.T_unit]}"
+
+    def fmt_p(self, p: float) -> str:
+        return f"{convert(p, 'Pa', self.p_unit, 'pressure'):.5g} {UNIT_LABELS[self.p_unit]}"
+
+    # -- window --------------------------------------------------------------------------------
+    def default_window(self, sub: Substance) -> tuple[float, float, float, float]:
+        """(T_lo, T_hi [K], p_lo, p_hi [Pa]) showing the triple and critical points with margin."""
+        T_t, p_t = sub.triple
+        T_c, p_c = sub.critical
+        span = T_c - T_t
+        T_lo = max(sub.T_min, T_t - 0.3 * span)
+        T_hi = min(sub.T_max, T_c + 0.3 * span)
+        p_lo = p_t / 30.0
+        if sub.sublimation is not None and sub.sublimation.T_min <= T_lo <= sub.sublimation.T_max:
+            p_lo = min(p_lo, sub.sublimation.p_of_T(T_lo) / 3.0)
+        p_hi = min(sub.p_max, p_c * 30.0)
+        return T_lo, T_hi, max(p_lo, 1e-3), p_hi
+
+    def fit_window(self, corners: list[tuple[float, float]]) -> tuple[float, float, float, float]:
+        """The default window grown to hold every corner of the route, with a margin."""
+        assert self.substance is not None
+        T_lo, T_hi, p_lo, p_hi = self.default_window(self.substance)
+        if corners:
+            Ts = [c[0] for c in corners]
+            ps = [c[1] for c in corners if c[1] > 0]
+            dT = 0.06 * (max(Ts + [T_hi]) - min(Ts + [T_lo]))
+            T_lo, T_hi = min([T_lo] + [t - dT for t in Ts]), max([T_hi] + [t + dT for t in Ts])
+            if ps:
+                p_lo, p_hi = min([p_lo] + [p / 2.0 for p in ps]), max([p_hi] + [p * 2.0 for p in ps])
+        T_lo = max(T_lo, 1e-3)
+        return T_lo, T_hi, p_lo, p_hi
+
+    def set_window(self, T_lo: float, T_hi: float, p_lo: float, p_hi: float) -> None:
+        """Show T_lo..T_hi [K] and p_lo..p_hi [Pa]."""
+        (x0, x1), (y0, y1) = to_display([T_lo, T_hi], [p_lo, p_hi], self.T_unit, self.p_unit)
+        with self.sx.hold_sync(), self.sy.hold_sync():
+            self.sx.min, self.sx.max = float(min(x0, x1)), float(max(x0, x1))
+            self.sy.min, self.sy.max = float(y0), float(y1)
+
+    def window(self) -> tuple[float, float, float, float] | None:
+        """The visible window in SI, or None before it is set."""
+        if None in (self.sx.min, self.sx.max, self.sy.min, self.sy.max):
+            return None
+        T0, p0 = from_display(self.sx.min, self.sy.min, self.T_unit, self.p_unit)
+        T1, p1 = from_display(self.sx.max, self.sy.max, self.T_unit, self.p_unit)
+        return min(T0, T1), max(T0, T1), p0, p1
+
+    def set_mode(self, mode: str) -> None:
+        """"draw" (clicks add corners) or "pan" (drag pans, wheel zooms)."""
+        self.figure.interaction = self._pan if mode == "pan" else None
+        if mode == "pan":
+            self.figure.add_class("pp-pan")
+        else:
+            self.figure.remove_class("pp-pan")
+
+    # -- route ---------------------------------------------------------------------------------
+    def set_route(self, corners: list[tuple[float, float]], valid: bool = True) -> None:
+        """Draw the route through ``corners`` (SI) and its corner markers."""
+        if corners:
+            x, y = to_display([c[0] for c in corners], [c[1] for c in corners],
+                              self.T_unit, self.p_unit)
+        else:
+            x = y = np.array([], dtype=float)
+        st = STYLE["route"] if valid else STYLE["route_invalid"]
+        with self.route_line.hold_sync():
+            self.route_line.x, self.route_line.y = x, y
+            self.route_line.colors = [st["color"]]
+            self.route_line.stroke_width = st["width"]
+            self.route_line.line_style = "solid" if valid else "dashed"
+        with self.corners.hold_sync():
+            self.corners.x, self.corners.y = x.astype(float), y.astype(float)
+            self.corners.names = ["S"] + [str(i) for i in range(1, len(corners))]
+            self.corners.colors = ([STYLE["corner"]["start"]]
+                                   + [STYLE["corner"]["fill"]] * max(len(corners) - 1, 0))
+
+    def preview_route(self, corners: list[tuple[float, float]]) -> None:
+        """Move only the route line (while a corner is being dragged)."""
+        x, y = to_display([c[0] for c in corners], [c[1] for c in corners], self.T_unit, self.p_unit)
+        with self.route_line.hold_sync():
+            self.route_line.x, self.route_line.y = x, y
+
+    def set_crossings(self, points: list[tuple[float, float]]) -> None:
+        """Mark each crossing (SI) on the diagram."""
+        if points:
+            x, y = to_display([c[0] for c in points], [c[1] for c in points],
+                              self.T_unit, self.p_unit)
+        else:
+            x = y = np.array([], dtype=float)
+        with self.crossings.hold_sync():
+            self.crossings.x, self.crossings.y = x, y
+
+    def widgets(self) -> list[W.Widget]:
+        """Every widget whose state a redraw may touch (for batched updates)."""
+        return [self.figure, self.sx, self.sy, self.ax, self.ay, self.route_line, self.corners,
+                self.crossings, self.triple, self.critical, self.regions, *self.curves]
+
+
+def _region_positions(sub: Substance, window: tuple[float, float, float, float]
+                      ) -> list[tuple[str, float, float]]:
+    """Where to write the four region names (SI), inside each region and the default window."""
+    T_lo, T_hi, p_lo, p_hi = window
+    T_t, p_t = sub.triple
+    T_c, p_c = sub.critical
+    lp_t, lp_c = math.log10(p_t), math.log10(p_c)
+    out: list[tuple[str, float, float]] = []
+    # vapor: below the vapor-pressure curve, right of the triple point, low pressure
+    T_v = T_t + 0.55 * (T_c - T_t)
+    p_v = 10 ** (0.5 * (math.log10(p_lo) + lp_t)) if p_lo < p_t else p_t / 3
+    out.append(("VAPOR", T_v, max(p_v, p_lo * 3)))
+    # liquid: just below the critical temperature, well above the vapor-pressure curve
+    T_l = T_t + 0.45 * (T_c - T_t)
+    p_l = 10 ** (lp_c + 0.45 * (math.log10(p_hi) - lp_c))
+    if sub.vapor is not None:
+        p_l = max(p_l, 10 * sub.vapor.p_of_T(T_l))
+    for b in sub.melting:
+        if b.solid_side == "above" and b.T_min <= T_l <= b.T_max:
+            p_l = min(p_l, 10 ** (0.5 * (math.log10(max(sub.vapor.p_of_T(T_l), 1e-3))
+                                          + math.log10(b.p_of_T(T_l))))) if sub.vapor else p_l
+    out.append(("LIQUID", T_l, min(p_l, p_hi / 2)))
+    # solid: left of the triple point
+    T_s = T_lo + 0.35 * (T_t - T_lo) if T_t > T_lo else T_t
+    out.append(("SOLID", T_s, 10 ** (0.5 * (lp_t + lp_c))))
+    # supercritical: right of and above the critical point
+    out.append(("SUPERCRITICAL", T_c + 0.55 * (T_hi - T_c), 10 ** (lp_c + 0.5 * (math.log10(p_hi) - lp_c))))
+    return out

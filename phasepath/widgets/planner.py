@@ -1,0 +1,614 @@
+"""The route planner: draw, edit and read a route on a substance's phase diagram.
+
+State lives in traitlets (``substance``, ``route``, ``report``, the display units, the leg kind
+in force, the mode). The planner keeps the user's drawing as plain data (see ``_spec``), builds a
+:class:`phasepath.Route` from it through the core and analyses it with ``Route.analyze``; it never
+computes a crossing itself. Every change ends in one batched update of the figure, the leg list
+and the tables (``hold_sync`` on each touched widget), so the page redraws once.
+
+>>> import phasepath as pp
+>>> planner = pp.widgets.RoutePlanner(pp.Route("CO2", T="-20 degC", p="10 bar").isobar(T="20 degC"))
+>>> planner.report.crossings[0].kind
+'vaporization'
+"""
+
+from __future__ import annotations
+
+import contextlib
+import io
+import json
+import math
+from collections.abc import Iterator
+from pathlib import Path
+from typing import Any
+
+import ipywidgets as W
+import traitlets as tl
+
+from ..errors import PhasePathError
+from ..report import Report
+from ..route import Route
+from ..substances import substance as _substance
+from ..substances import substances as _substances
+from ..units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, convert, parse_quantity
+from . import _spec
+from .controls import CSS, LegList, cautions_html, crossing_tip, results_html
+from .diagram import STYLE, PhaseDiagram, from_display
+
+__all__ = ["RoutePlanner"]
+
+_KINDS = ("auto", "isotherm", "isobar")
+_UNIT_TEXT = {"degC": "°C", "degF": "°F", "K": "K"}
+_HISTORY = 200  # undo steps kept
+
+
+class RoutePlanner(W.VBox):
+    """A phase diagram on which a route is drawn with the mouse or typed in, with its results.
+
+    Parameters
+    ----------
+    substance : str, Substance or Route
+        The substance to start with (``"CO2"``, ``"water"``), or a route to draw.
+    route : Route, optional
+        A route to draw (its substance wins over ``substance``).
+    T_unit, p_unit, energy_unit : str
+        Display units: ``"K"``, ``"degC"``, ``"degF"``; ``"Pa"``, ``"kPa"``, ``"bar"``, ``"MPa"``,
+        ``"psi"``, ``"atm"``; ``"J/kg"``, ``"kJ/kg"``, ``"Btu/lb"``.
+
+    Attributes
+    ----------
+    route : Route or None
+        The current route (None before a start is placed, or while the drawing is not a valid
+        route of the substance; ``message`` then says why). Assigning a route draws it.
+    report : Report or None
+        The analysis of ``route`` (None without legs).
+    message : str
+        The last error or status, as shown above the table.
+    """
+
+    substance = tl.Unicode("CarbonDioxide")
+    route = tl.Instance(Route, allow_none=True)
+    report = tl.Instance(Report, allow_none=True, read_only=True)
+    T_unit = tl.Enum(TEMPERATURE_UNITS, "degC")
+    p_unit = tl.Enum(PRESSURE_UNITS, "bar")
+    energy_unit = tl.Enum(ENERGY_UNITS, "kJ/kg")
+    leg_kind = tl.Enum(_KINDS, "auto")
+    mode = tl.Enum(("draw", "pan"), "draw")
+    message = tl.Unicode("")
+
+    def __init__(self, substance: Any = "CO2", route: Route | None = None, *,
+                 T_unit: str = "degC", p_unit: str = "bar", energy_unit: str = "kJ/kg") -> None:
+        if isinstance(substance, Route):
+            route, substance = substance, substance.substance
+        if route is not None:
+            substance = route.substance
+        sub = _substance(substance)
+        super().__init__(layout=W.Layout(width="100%"))
+        self.add_class("pp-planner")
+        self._busy = True
+        self._undo: list[_spec.Spec] = []
+        self._redo: list[_spec.Spec] = []
+        self._valid = True
+        self._shown: list[tuple[float, float]] = []
+        self.T_unit, self.p_unit, self.energy_unit = T_unit, p_unit, energy_unit
+        self.substance = sub.name
+        self.diagram = PhaseDiagram(T_unit, p_unit)
+        self._build_controls()
+        self._layout()
+        self._busy = False
+        self._spec = _spec.from_route(route) if route is not None else _spec.empty(sub.name)
+        self.diagram.set_substance(sub)
+        self._apply(self._spec, fit=True)
+
+    # -- construction --------------------------------------------------------------------------
+    def _build_controls(self) -> None:
+        names = sorted(_substances(), key=str.lower)
+        self.picker = W.Combobox(options=names, ensure_option=False, continuous_update=False,
+                                 placeholder="type to filter…", description="Substance",
+                                 layout=W.Layout(width="260px"))
+        self.kind_toggle = W.ToggleButtons(
+            options=[("auto", "auto"), ("constant T", "isotherm"), ("constant p", "isobar")],
+            value="auto", tooltips=["pick the kind from the click's direction",
+                                    "next leg holds the temperature (isotherm)",
+                                    "next leg holds the pressure (isobar)"],
+            style={"button_width": "92px"})
+        self.mode_toggle = W.ToggleButtons(options=[("draw", "draw"), ("pan/zoom", "pan")],
+                                           value="draw", style={"button_width": "80px"},
+                                           tooltips=["clicks add corners; drag a corner to move it",
+                                                     "drag to pan, scroll to zoom"])
+        self.fit_btn = W.Button(description="fit", icon="expand", tooltip="show the whole route",
+                                layout=W.Layout(width="70px"))
+        self.undo_btn = W.Button(description="undo", icon="undo", layout=W.Layout(width="80px"))
+        self.redo_btn = W.Button(description="redo", icon="repeat", layout=W.Layout(width="80px"))
+        self.clear_btn = W.Button(description="clear", icon="eraser",
+                                  layout=W.Layout(width="80px"))
+        self.T_pick = W.Dropdown(options=[(_UNIT_TEXT[u], u) for u in TEMPERATURE_UNITS],
+                                 description="T", layout=W.Layout(width="130px"))
+        self.p_pick = W.Dropdown(options=list(PRESSURE_UNITS), description="p",
+                                 layout=W.Layout(width="130px"))
+        self.e_pick = W.Dropdown(options=list(ENERGY_UNITS), description="energy",
+                                 layout=W.Layout(width="170px"))
+        self.start_T = W.Text(placeholder="T, e.g. 25 degC", layout=W.Layout(width="120px"))
+        self.start_p = W.Text(placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px"))
+        self.start_btn = W.Button(description="place start", layout=W.Layout(width="110px"))
+        self.start_msg = W.HTML()
+        self.legs = LegList(self._edit_corner, self._delete_corner)
+        self.status = W.HTML()
+        self.results = W.HTML()
+        self.legend = W.HTML(_legend_html())
+        self.cautions = W.HTML()
+        self.downloads = W.HTML()
+        self.png_btn = W.Button(description="PNG", icon="image", layout=W.Layout(width="80px"))
+        self.svg_btn = W.Button(description="SVG", icon="image", layout=W.Layout(width="80px"))
+        self.style_html = W.HTML(CSS, layout=W.Layout(height="0px", overflow="hidden"))
+
+        self.picker.observe(self._picked, names="value")
+        tl.link((self, "leg_kind"), (self.kind_toggle, "value"))
+        tl.link((self, "mode"), (self.mode_toggle, "value"))
+        tl.link((self, "T_unit"), (self.T_pick, "value"))
+        tl.link((self, "p_unit"), (self.p_pick, "value"))
+        tl.link((self, "energy_unit"), (self.e_pick, "value"))
+        self.fit_btn.on_click(lambda _b: self.fit())
+        self.undo_btn.on_click(lambda _b: self.undo())
+        self.redo_btn.on_click(lambda _b: self.redo())
+        self.clear_btn.on_click(lambda _b: self.clear())
+        self.start_btn.on_click(lambda _b: self._typed_start())
+        self.png_btn.on_click(lambda _b: self.save_png())
+        self.svg_btn.on_click(lambda _b: self.save_svg())
+        c = self.diagram.corners
+        c.observe(self._corners_changed, names=["x", "y"])
+        c.on_drag(self._dragging)
+        c.on_hover(self._hover_corner)
+        self.diagram.crossings.on_hover(self._hover_crossing)
+
+    def _layout(self) -> None:
+        bar = W.HBox([self.picker, self.kind_toggle, self.mode_toggle, self.fit_btn, self.undo_btn,
+                      self.redo_btn, self.clear_btn],
+                     layout=W.Layout(flex_flow="row wrap", align_items="center"))
+        units = W.HBox([W.HTML("<b>Units</b>&nbsp;"), self.T_pick, self.p_pick, self.e_pick],
+                       layout=W.Layout(align_items="center"))
+        self.start_box = W.VBox([W.HTML("<div class='pp-h'>Start state</div>"),
+                                 W.HBox([self.start_T, self.start_p, self.start_btn]),
+                                 self.start_msg])
+        side = W.VBox([units, self.start_box, self.legs],
+                      layout=W.Layout(flex="0 0 390px", padding="0 0 0 12px"))
+        plot = W.VBox([self.diagram.figure, self.legend, self.diagram.css],
+                      layout=W.Layout(flex="1 1 auto"))
+        export = W.HBox([W.HTML("<b>Export</b>&nbsp;"), self.downloads,
+                         W.HTML("&nbsp;diagram:&nbsp;"), self.png_btn, self.svg_btn],
+                        layout=W.Layout(align_items="center", flex_flow="row wrap"))
+        self.children = [self.style_html, bar, W.HBox([plot, side]), self.status, self.results,
+                         export, self.cautions]
+
+    # -- public --------------------------------------------------------------------------------
+    def undo(self) -> None:
+        """Go back one edit."""
+        if self._undo:
+            self._redo.append(self._spec)
+            self._apply(self._undo.pop())
+
+    def redo(self) -> None:
+        """Redo the last undone edit."""
+        if self._redo:
+            self._undo.append(self._spec)
+            self._apply(self._redo.pop())
+
+    def clear(self) -> None:
+        """Remove every corner (undoable)."""
+        self._commit(_spec.empty(self.substance), force=True)
+
+    def fit(self) -> None:
+        """Show the whole diagram and the whole route."""
+        self.diagram.set_window(*self.diagram.fit_window(self._corners_or_empty()))
+
+    def add_corner(self, T: object, p: object, kind: str | None = None) -> str:
+        """Add the next corner at (T, p) as a click would (snapped to ``kind``, or to
+        ``leg_kind``). Numbers are in the display units; strings may carry a unit. Returns the
+        error message, or "" when the corner was added."""
+        try:
+            Ts = self._typed_text(T, "temperature")
+            ps = self._typed_text(p, "pressure")
+        except PhasePathError as exc:
+            return self._say(str(exc))
+        return self._add(Ts, ps, kind)
+
+    def crossings_table(self) -> Any:
+        """The crossings as a DataFrame in the display units (empty without a report)."""
+        import pandas as pd
+
+        if self.report is None:
+            return pd.DataFrame()
+        return self.report.table(self.T_unit, self.p_unit, self.energy_unit)
+
+    def legs_table(self) -> Any:
+        """Heat and work per leg as a DataFrame in the display units."""
+        import pandas as pd
+
+        if self.report is None:
+            return pd.DataFrame()
+        return self.report.legs_table(self.T_unit, self.p_unit, self.energy_unit)
+
+    def save_route(self, path: str | Path) -> Path:
+        """Save the current route as a route file (JSON or YAML by suffix)."""
+        if self.route is None:
+            raise PhasePathError(f"there is no valid route to save: {self.message}")
+        from ..io import save_route
+
+        return save_route(self.route, path)
+
+    def save_table(self, path: str | Path) -> Path:
+        """Save the crossings table as CSV in the display units."""
+        p = Path(path)
+        self.crossings_table().to_csv(p, index=False)
+        return p
+
+    def save_png(self, filename: str = "phase-route.png") -> None:
+        """Download the diagram as PNG (done by the browser showing the planner)."""
+        self.diagram.figure.save_png(filename)
+
+    def save_svg(self, filename: str = "phase-route.svg") -> None:
+        """Download the diagram as SVG (done by the browser showing the planner)."""
+        self.diagram.figure.save_svg(filename)
+
+    # -- trait observers -----------------------------------------------------------------------
+    @tl.observe("route")
+    def _route_assigned(self, change: dict[str, Any]) -> None:
+        if self._busy or change["new"] is None:
+            return
+        route: Route = change["new"]
+        spec = _spec.from_route(route)
+        if route.substance.name != self.substance:
+            with self._quiet():
+                self.substance = route.substance.name
+            self.diagram.set_substance(route.substance)
+        self._commit(spec, force=True, fit=True)
+
+    @tl.observe("substance")
+    def _substance_set(self, change: dict[str, Any]) -> None:
+        if self._busy:
+            return
+        try:
+            sub = _substance(change["new"])
+        except PhasePathError as exc:
+            with self._quiet():
+                self.substance = change["old"]
+            self._say(str(exc))
+            return
+        if sub.name != change["new"]:
+            with self._quiet():
+                self.substance = sub.name
+        self._switch(sub.name)
+
+    @tl.observe("T_unit", "p_unit", "energy_unit")
+    def _units_set(self, change: dict[str, Any]) -> None:
+        if self._busy:
+            return
+        self.diagram.set_units(self.T_unit, self.p_unit)
+        self._refresh()
+
+    @tl.observe("mode")
+    def _mode_set(self, change: dict[str, Any]) -> None:
+        self.diagram.set_mode(change["new"])
+
+    # -- events from the page ------------------------------------------------------------------
+    def _picked(self, change: dict[str, Any]) -> None:
+        if self._busy or not change["new"]:
+            return
+        try:
+            name = _substance(change["new"]).name
+        except PhasePathError as exc:
+            self._say(str(exc))
+            return
+        self.substance = name
+
+    def _corners_changed(self, change: dict[str, Any]) -> None:
+        """A click added a point to the corner Scatter, or a drag ended and moved one."""
+        if self._busy:
+            return
+        c = self.diagram.corners
+        x, y = list(c.x), list(c.y)
+        if len(x) != len(y):
+            return  # the other coordinate arrives in the same message
+        shown = self._shown
+        if len(x) == len(shown) + 1:
+            Ts, ps = self._point_text(x[-1], y[-1])
+            self._add(Ts, ps, None)
+        elif len(x) == len(shown):
+            moved = [i for i, (a, b) in enumerate(zip(zip(x, y), shown))
+                     if not (math.isclose(a[0], b[0], rel_tol=1e-12, abs_tol=1e-12)
+                             and math.isclose(a[1], b[1], rel_tol=1e-12))]
+            if len(moved) == 1:
+                i = moved[0]
+                Ts, ps = self._point_text(x[i], y[i])
+                self._move(i, Ts, ps)
+            elif moved:
+                self._redraw()
+        else:
+            self._redraw()
+
+    def _dragging(self, _mark: Any, event: dict[str, Any]) -> None:
+        """While a corner is dragged: move only the route line (no analysis)."""
+        try:
+            i = int(event["index"])
+            Ts, ps = self._point_text(event["point"]["x"], event["point"]["y"])
+            spec = _spec.move_corner(self._spec, i, Ts, ps)
+            self.diagram.preview_route(_spec.corners(spec))
+        except (KeyError, TypeError, ValueError, IndexError):
+            return
+
+    def _hover_corner(self, _mark: Any, event: dict[str, Any]) -> None:
+        i = _event_index(event)
+        pts = self._corners_or_empty()
+        if i is None or i >= len(pts):
+            return
+        T, p = pts[i]
+        phase = ""
+        if self.report is not None:
+            st = self.report.legs[0].start if i == 0 else self.report.legs[min(i, len(self.report.legs)) - 1].end
+            phase = f"<br>{st.phase}"
+        self.diagram.corners.tooltip.value = (
+            f"<div class='pp-tip'><b>corner {'S' if i == 0 else i}</b><br>"
+            f"{self.diagram.fmt_T(T)}<br>{self.diagram.fmt_p(p)}{phase}</div>")
+
+    def _hover_crossing(self, _mark: Any, event: dict[str, Any]) -> None:
+        i = _event_index(event)
+        if self.report is None or i is None or i >= len(self.report.crossings):
+            return
+        self.diagram.crossings.tooltip.value = (
+            "<div class='pp-tip'>" + crossing_tip(self.report.crossings[i], self.T_unit,
+                                                  self.p_unit, self.energy_unit) + "</div>")
+
+    def _edit_corner(self, index: int, coord: str, typed: str) -> str:
+        try:
+            value = self._typed_text(typed, "temperature" if coord == "T" else "pressure")
+        except PhasePathError as exc:
+            return self._say(str(exc), keep_fields=True)
+        kw = {"T_text": value} if coord == "T" else {"p_text": value}
+        return self._move(index, keep_fields=True, **kw)
+
+    def _delete_corner(self, index: int) -> str:
+        try:
+            spec = _spec.delete_corner(self._spec, index)
+        except IndexError as exc:
+            return str(exc)
+        return self._commit(spec)
+
+    def _typed_start(self) -> None:
+        try:
+            Ts = self._typed_text(self.start_T.value, "temperature")
+            ps = self._typed_text(self.start_p.value, "pressure")
+        except PhasePathError as exc:
+            self.start_msg.value = f"<span class='pp-err'>⚠ {_esc(str(exc))}</span>"
+            return
+        if self._spec["start"] is None:
+            spec = _spec.add_corner(self._spec, Ts, ps, "isobar")
+        else:
+            spec = _spec.move_corner(self._spec, 0, Ts, ps)
+        msg = self._commit(spec, fit=True)
+        self.start_msg.value = f"<span class='pp-err'>⚠ {_esc(msg)}</span>" if msg else ""
+
+    # -- edits ---------------------------------------------------------------------------------
+    def _add(self, T_text: str, p_text: str, kind: str | None) -> str:
+        kind = kind or self.leg_kind
+        if kind == "auto":
+            kind = self._auto_kind(T_text, p_text)
+        return self._commit(_spec.add_corner(self._spec, T_text, p_text, kind))
+
+    def _move(self, index: int, T_text: str | None = None, p_text: str | None = None,
+              keep_fields: bool = False) -> str:
+        try:
+            spec = _spec.move_corner(self._spec, index, T_text, p_text)
+        except (IndexError, PhasePathError) as exc:
+            return self._say(str(exc))
+        return self._commit(spec, keep_fields=keep_fields)
+
+    def _auto_kind(self, T_text: str, p_text: str) -> str:
+        """The kind whose leg runs closer to the click's direction on screen."""
+        pts = self._corners_or_empty()
+        win = self.diagram.window() or self.diagram.fit_window(pts)
+        if not pts:
+            return "isobar"
+        T0, p0 = pts[-1]
+        T1 = parse_quantity(T_text, "temperature")
+        p1 = parse_quantity(p_text, "pressure")
+        dx = abs(T1 - T0) / max(win[1] - win[0], 1e-12)
+        dy = abs(math.log10(max(p1, 1e-300) / p0)) / max(math.log10(win[3] / win[2]), 1e-12)
+        return "isotherm" if dy > dx else "isobar"
+
+    def _commit(self, spec: _spec.Spec, *, force: bool = False, fit: bool = False,
+                keep_fields: bool = False) -> str:
+        """Take an edit if it gives a valid, analysable route (or ``force``); else keep the last
+        good route. Returns the error message ("" when the edit was taken and is valid)."""
+        result = _evaluate(spec)
+        err = result[2]
+        if err and not force and self._valid:
+            self._say(err, keep_fields=keep_fields)
+            if not keep_fields:
+                self._redraw()
+            return err
+        self._undo.append(self._spec)
+        del self._undo[:-_HISTORY]
+        self._redo.clear()
+        self._apply(spec, fit=fit, result=result)
+        return err
+
+    def _switch(self, name: str) -> None:
+        spec = {**self._spec, "substance": name}
+        self.diagram.set_substance(_substance(name))
+        self._commit(spec, force=True, fit=True)
+
+    # -- state -> view -------------------------------------------------------------------------
+    def _apply(self, spec: _spec.Spec, fit: bool = False,
+               result: tuple[Route | None, Report | None, str] | None = None) -> None:
+        """Make ``spec`` the drawing: build and analyse the route, then redraw once."""
+        if spec["substance"] != self.substance:
+            sub = _substance(spec["substance"])
+            with self._quiet():
+                self.substance = sub.name
+            self.diagram.set_substance(sub)
+        self._spec = spec
+        route, report, msg = result if result is not None else _evaluate(spec)
+        self._valid = not msg
+        with self._quiet():
+            self.route = route if not msg else None
+            self.set_trait("report", report if not msg else None)
+        self._refresh(msg, fit=fit)
+
+    def _refresh(self, msg: str | None = None, fit: bool = False) -> None:
+        if msg is None:
+            msg = self.message
+        pts = self._corners_or_empty()
+        with self._batch():
+            if fit:
+                self.fit()
+            self._draw_route(pts)
+            kinds = ["start"] + [leg["kind"] for leg in self._spec["legs"]]
+            self.legs.show(pts, kinds[: len(pts)], self.T_unit, self.p_unit)
+            self.start_box.layout.display = "none" if pts else None
+            self.results.value = results_html(self.report, self.T_unit, self.p_unit,
+                                              self.energy_unit)
+            self.downloads.value = self._download_links()
+            self.cautions.value = cautions_html(_substance(self.substance), pts, self.report)
+            self.undo_btn.disabled = not self._undo
+            self.redo_btn.disabled = not self._redo
+            with self._quiet():
+                self.picker.value = self.substance
+            self._say(msg)
+
+    def _redraw(self) -> None:
+        with self._batch():
+            self._draw_route(self._corners_or_empty())
+
+    def _draw_route(self, pts: list[tuple[float, float]]) -> None:
+        with self._quiet():
+            self.diagram.set_route(pts, valid=self._valid)
+            self._shown = list(zip(self.diagram.corners.x, self.diagram.corners.y))
+        cross = [(c.T, c.p) for c in self.report.crossings] if self.report else []
+        self.diagram.set_crossings(cross)
+
+    def _say(self, msg: str, keep_fields: bool = False) -> str:
+        self.message = msg
+        if msg:
+            self.status.value = f"<div class='pp-status pp-bad'>⚠ {_esc(msg)}</div>"
+        elif self.report is not None:
+            n = len(self.report.crossings)
+            self.status.value = (f"<div class='pp-status pp-ok'>{self.substance}: "
+                                 f"{len(self.report.legs)} leg(s), {n} crossing(s).</div>")
+        else:
+            self.status.value = ""
+        return msg
+
+    # -- helpers -------------------------------------------------------------------------------
+    def _corners_or_empty(self) -> list[tuple[float, float]]:
+        try:
+            return _spec.corners(self._spec)
+        except PhasePathError:
+            return []
+
+    def _point_text(self, x: float, y: float) -> tuple[str, str]:
+        T, p = from_display(x, y, self.T_unit, self.p_unit)
+        return _spec.text(T, "temperature", self.T_unit), _spec.text(p, "pressure", self.p_unit)
+
+    def _typed_text(self, value: object, dimension: str) -> str:
+        """What the user typed, checked, with the display unit added to a bare number."""
+        unit = self.T_unit if dimension == "temperature" else self.p_unit
+        parse_quantity(value, dimension, unit)
+        text = str(value).strip()
+        try:
+            float(text)
+        except ValueError:
+            return text
+        return f"{text} {unit}"
+
+    def _download_links(self) -> str:
+        import base64
+
+        links = []
+        if self.route is not None:
+            try:
+                from ..io import dumps_route
+
+                data = dumps_route(self.route, "json")
+            except (ImportError, PhasePathError):
+                data = json.dumps(self.route.to_dict(), indent=2, default=str)
+            links.append(("route.json", "application/json", data))
+        if self.report is not None:
+            buf = io.StringIO()
+            self.crossings_table().to_csv(buf, index=False)
+            links.append(("crossings.csv", "text/csv", buf.getvalue()))
+            buf = io.StringIO()
+            self.legs_table().to_csv(buf, index=False)
+            links.append(("legs.csv", "text/csv", buf.getvalue()))
+        if not links:
+            return "<span style='font-size:12px;color:#555'>nothing to export yet</span>"
+        parts = []
+        for name, mime, data in links:
+            b64 = base64.b64encode(data.encode("utf-8")).decode("ascii")
+            parts.append(f"<a download='{name}' href='data:{mime};base64,{b64}' "
+                         f"style='margin-right:12px'>⬇ {name}</a>")
+        return "".join(parts)
+
+    @contextlib.contextmanager
+    def _quiet(self) -> Iterator[None]:
+        old, self._busy = self._busy, True
+        try:
+            yield
+        finally:
+            self._busy = old
+
+    @contextlib.contextmanager
+    def _batch(self) -> Iterator[None]:
+        """Hold every touched widget's messages until the end: the page redraws once."""
+        with contextlib.ExitStack() as stack:
+            for w in [*self.diagram.widgets(), self.legs, self.results, self.status,
+                      self.downloads, self.cautions, self.start_box, self.picker]:
+                stack.enter_context(w.hold_sync())
+            yield
+
+
+def _evaluate(spec: _spec.Spec) -> tuple[Route | None, Report | None, str]:
+    """(route, report, error message) of a drawing; the core does all the work."""
+    try:
+        route = _spec.build(spec)
+        report = route.analyze() if route is not None and route.legs else None
+        return route, report, ""
+    except PhasePathError as exc:
+        return None, None, str(exc)
+    except Exception as exc:  # a defect in phasepath: say so instead of a traceback
+        return None, None, (f"phasepath could not analyse this route ({type(exc).__name__}: "
+                            f"{exc}); the drawing is kept. Please report this route.")
+
+
+def _event_index(event: dict[str, Any]) -> int | None:
+    data = event.get("data") or {}
+    i = data.get("index", event.get("index"))
+    return int(i) if i is not None else None
+
+
+def _esc(text: str) -> str:
+    import html
+
+    return html.escape(text)
+
+
+def _legend_html() -> str:
+    def line(kind: str) -> str:
+        st = STYLE[kind]
+        dash = {"solid": "", "dashed": "stroke-dasharray='7 4'",
+                "dash_dotted": "stroke-dasharray='7 3 2 3'"}[st["dash"]]
+        return (f"<span class='pp-key'><svg width='30' height='10'><line x1='0' y1='5' x2='30' "
+                f"y2='5' stroke='{st['color']}' stroke-width='2.5' {dash}/></svg> "
+                f"{st['label']}</span>")
+
+    return ("<div class='pp-legend'>" + line("vaporization") + line("melting")
+            + line("sublimation")
+            + "<span class='pp-key'><svg width='12' height='12'><polygon points='6,1 11,11 1,11' "
+              "fill='#1d1d1f'/></svg> triple point</span>"
+            + "<span class='pp-key'><svg width='12' height='12'><rect x='1.5' y='1.5' width='9' "
+              "height='9' fill='#fff' stroke='#1d1d1f' stroke-width='2'/></svg> critical point"
+              "</span>"
+            + "<span class='pp-key'><svg width='30' height='12'><line x1='0' y1='6' x2='30' y2='6' "
+              "stroke='#1d1d1f' stroke-width='3'/><circle cx='15' cy='6' r='4' fill='#fff' "
+              "stroke='#1d1d1f' stroke-width='2'/></svg> route (drag a corner)</span>"
+            + "<span class='pp-key'><svg width='14' height='14'><polygon points='7,1 13,7 7,13 1,7'"
+              " fill='#f2b01e' stroke='#1d1d1f' stroke-width='1.2'/></svg> crossing</span></div>")
