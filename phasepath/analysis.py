@@ -75,6 +75,8 @@ def crossing_kind(from_phase: str, to_phase: str) -> str:
     'deposition'
     >>> crossing_kind("liquid+vapor", "solid+vapor")
     'deposition'
+    >>> crossing_kind("liquid+vapor", "supercritical")
+    'supercritical-entry'
     """
     if (from_phase, to_phase) in _KIND:
         return _KIND[(from_phase, to_phase)]
@@ -94,6 +96,10 @@ def crossing_kind(from_phase: str, to_phase: str) -> str:
             return _KIND[(x, y)]
         if (y, x) in _KIND:
             return _KIND[(y, x)]
+    if "+" in from_phase and to_phase == "supercritical":
+        return "supercritical-entry"  # a sealed vessel at the critical density
+    if from_phase == "supercritical" and "+" in to_phase:
+        return "supercritical-exit"
     raise RouteError(f"no name for a change from {from_phase} to {to_phase}")
 
 
@@ -132,7 +138,9 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
     for i, leg in enumerate(route.legs):
         walk = _walk(sub, leg, corners[i], prev_end)
         walks.append(walk)
-        prev_end = leg.state
+        # the next leg starts from this leg's end state, on the side this leg arrives from
+        prev_end = leg.state if leg.state is not None else _single(
+            sub, StatePoint(leg.T, leg.p, "?"), walk.last)
     crossings: list[Crossing] = []
     legs: list[LegSummary] = []
     start_state = route.start.state
@@ -163,6 +171,10 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
     notes = list(sub.notes)
     if route.elevation is not None:
         notes.append(_ambient_note(sub, route.elevation))
+    if any(b.T_valid is not None for b in sub.boundaries):  # curves built from data: flag extrapolation
+        from .custom import range_warnings
+
+        notes += range_warnings(sub, route.corners(), crossings)
     return Report(route, crossings, legs, notes)
 
 
@@ -216,7 +228,7 @@ def _walk_curved(sub: Substance, leg: Leg, T0: float, p0: float, prev_end: State
         def state_at(x: float) -> StatePoint:
             return pr.flash_p(sub, x, prop, value)
         x0, x1, geometric = p0, leg.p, True
-    states, events = pr.trace(state_at, x0, x1, geometric)
+    states, events = pr.trace(state_at, x0, x1, geometric, first=start)
     found = []
     T_c, p_c = sub.critical
     for before, after, count in events:
@@ -247,6 +259,7 @@ def _corner(leg: Leg, state: StatePoint) -> _Candidate:
                       "corner", "corner", 0)
 
 
+@lru_cache(maxsize=4096)  # a pure function of its arguments: unchanged legs reuse their records
 def _crossing(sub: Substance, step: int, leg_kind: str, cand: _Candidate,
               before: tuple[str, str | None], after: tuple[str, str | None],
               where: str) -> Crossing:
@@ -359,5 +372,6 @@ def _isobar_candidates(sub: Substance, p: float, T0: float, T1: float) -> list[_
 
 
 def cache_clear() -> None:
-    """Forget cached leg traces (for benchmarks of cold analysis)."""
+    """Forget cached leg traces and crossing records (for benchmarks of cold analysis)."""
     _trace.cache_clear()
+    _crossing.cache_clear()

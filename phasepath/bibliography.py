@@ -60,6 +60,29 @@ SOURCES: dict[str, str] = {
         "Fray & Schmitt, Sublimation of ices of astrophysical interest: A bibliographic review, "
         "Planet. Space Sci. 57, 2053 (2009), doi:10.1016/j.pss.2009.09.011"
     ),
+    # Forms used for substances built from data (phasepath.correlations.vapor_pressure)
+    "Antoine1888": (
+        "Antoine, Tensions des vapeurs; nouvelle relation entre les tensions et les "
+        "températures, Comptes Rendus 107, 681, 778, 836 (1888)"
+    ),
+    "Wagner1973": (
+        "Wagner, New vapour pressure measurements for argon and nitrogen and a new method for "
+        "establishing rational vapour pressure equations, Cryogenics 13, 470 (1973), "
+        "doi:10.1016/0011-2275(73)90003-9; coefficient tables in the 3-6 form: McGarry, Ind. Eng. "
+        "Chem. Process Des. Dev. 22, 313 (1983), doi:10.1021/i200021a023"
+    ),
+    "Poling2001": (
+        "Poling, Prausnitz & O'Connell, The Properties of Gases and Liquids, 5th ed., "
+        "McGraw-Hill (2001), chapter 7 and Appendix A (Wagner 2.5-5 form, Antoine constants)"
+    ),
+    "Clausius1850": (
+        "Clausius, Über die bewegende Kraft der Wärme, Ann. Phys. 155, 500 (1850), "
+        "doi:10.1002/andp.18501550403 (integrated Clausius-Clapeyron equation)"
+    ),
+    "SimonGlatzel1929": (
+        "Simon & Glatzel, Bemerkungen zur Schmelzdruckkurve, Z. Anorg. Allg. Chem. 178, 309 "
+        "(1929), doi:10.1002/zaac.19291780123"
+    ),
 }
 
 

@@ -277,7 +277,8 @@ def format_report(report: Report, T_unit: str = "degC", p_unit: str = "bar",
     """
     T_u, p_u, e_u = (UNIT_LABELS[u] for u in (T_unit, p_unit, energy_unit))
     route = report.route
-    out = [f"{route.title or 'Route'} ({report.substance.name}, {len(report.legs)} legs)"]
+    n = len(report.legs)
+    out = [f"{route.title or 'Route'} ({report.substance.name}, {n} leg{'s' if n != 1 else ''})"]
     out.append("")
     out.append("Crossings")
     head, rows = _rows_crossings(report, T_unit, p_unit, energy_unit)

@@ -73,6 +73,7 @@ __all__ = [
     "fit_antoine",
     "approximate_latent_heat",
     "range_warnings",
+    "registered",
     "LATENT_HEAT_MODEL",
     "CC_WINDOW",
 ]
@@ -168,7 +169,7 @@ class VaporFit:
 
         rows = [{"T [K]": T, "p measured [Pa]": p, "p fitted [Pa]": self.pressure(T),
                  "residual [%]": 100.0 * math.expm1(r)}
-                for (T, p), r in zip(self.points, self.residuals)]
+                for (T, p), r in zip(self.points, self.residuals, strict=True)]
         return pd.DataFrame(rows)
 
     def describe(self) -> str:
@@ -183,13 +184,17 @@ class VaporFit:
         if self.form == "antoine":
             q, s = self.params, self.stderr
             return (f"Antoine fitted to {n} vapor points ({lo:g} K to {hi:g} K): "
-                    f"log10(p/Pa) = {q['A']:.6g} - {q['B']:.6g}/(T/K + {q['C']:.5g}) "
+                    f"log10(p/Pa) = {q['A']:.6g} - {q['B']:.6g}/(T/K {_signed(q['C'])}) "
                     f"(C ± {s['C']:.2g} K); {spread}.")
         dh, sd = self.params["dH"], self.enthalpy_stderr
         unc = f" ± {sd / 1e3:.2g}" if math.isfinite(sd) else ""
         return (f"Two-parameter Clausius-Clapeyron fit of {n} vapor points ({lo:g} K to {hi:g} K): "
                 f"enthalpy of vaporization {dh / 1e3:.4g}{unc} kJ/mol (1 standard uncertainty); "
                 f"{spread}.")
+
+
+def _signed(x: float) -> str:
+    return f"{'+' if x >= 0 else '-'} {abs(x):.5g}"
 
 
 def _points(points: Sequence[Sequence[object]], what: str = "vapor_points"
@@ -206,7 +211,7 @@ def _points(points: Sequence[Sequence[object]], what: str = "vapor_points"
             raise PhasePathError(f"{what}[{i}] = {item!r} is not a (T, p) pair") from None
         out.append((_T(T, f"{what}[{i}] temperature"), _p(p, f"{what}[{i}] pressure")))
     out.sort()
-    for (t0, _), (t1, _) in zip(out, out[1:]):
+    for (t0, _), (t1, _) in zip(out[:-1], out[1:], strict=True):
         if t1 - t0 <= 1e-9 * t1:
             raise PhasePathError(f"{what}: two points share the temperature {t0:g} K")
     return tuple(out)
@@ -378,6 +383,8 @@ def _only(d: object, allowed: tuple[str, ...], what: str) -> Mapping[str, Any]:
 
 
 def _pair(value: object, what: str, p_optional: bool = False) -> tuple[float, float | None]:
+    T: object
+    p: object
     try:
         T, p = value  # type: ignore[misc]
     except (TypeError, ValueError):
@@ -529,7 +536,7 @@ def _antoine_curve(d: object) -> _Curve:
 
     return _Curve(f, (lo, hi), "Antoine1888",
                   f"Antoine equation log{'10' if base == 10 else f'[{base:g}]'}(p/Pa) = "
-                  f"{A:.6g} - {B:.6g}/(T/K + {C:.5g}), published range {lo:g} K to {hi:g} K.")
+                  f"{A:.6g} - {B:.6g}/(T/K {_signed(C)}), published range {lo:g} K to {hi:g} K.")
 
 
 def _fitted_curve(pts: tuple[tuple[float, float], ...], Tb: float | None, dH: float | None,
@@ -745,8 +752,8 @@ def from_data(
     elif T_c is not None and p_c is not None:
         gap = f(T_c) / p_c - 1.0
         if abs(gap) > 1e-6:
-            notes.append(f"The vapor-pressure curve ends {100 * gap:+.2g} % from the given critical "
-                         "pressure.")
+            notes.append(f"The vapor-pressure curve ends {100 * gap:+.2g} % from the given "
+                         "critical pressure.")
 
     def p_vap(T: float, _lo: float = lo, _hi: float = hi) -> float:
         if T < _lo and lower is not None:
@@ -842,6 +849,7 @@ def from_data(
         notes=tuple(notes), eos=None, T_min=T_floor,
     )
     sub.source_data = SubstanceData(recipe, fits, M, dH_fus, dH_sub, tuple(missing))
+    _register(sub)
     return sub
 
 
@@ -863,7 +871,8 @@ def _melting(sg: Mapping[str, Any] | None, slope: float | None, T_m: float | Non
             return vp.simon_glatzel(T, T_ref, p_ref, a, c) + shift
 
         source = "SimonGlatzel1929"
-        text = f"Simon-Glatzel equation, a = {a:.6g} Pa, c = {c:.5g}, from ({T_ref:g} K, {p_ref:.6g} Pa)"
+        text = (f"Simon-Glatzel equation, a = {a:.6g} Pa, c = {c:.5g}, from ({T_ref:g} K, "
+                f"{p_ref:.6g} Pa)")
         valid_top = _T(d["T_max"], "simon_glatzel T_max") if d.get("T_max") is not None else None
     elif slope is not None:
         def p_m(T: float) -> float:
@@ -912,8 +921,27 @@ def _dlnp_dT(b: Boundary, T: float) -> float:
     return s * (-3 * g(T) + 4 * g(T + s * h) - g(T + 2 * s * h)) / (2 * h)
 
 
-# -- files ---------------------------------------------------------------------------------------
+# -- names and files ----------------------------------------------------------------------------
 _CACHE: dict[str, Substance] = {}
+_REGISTRY: dict[str, Substance] = {}
+
+
+def _register(sub: Substance) -> None:
+    from .substances import _alias_map, _key
+
+    if _key(sub.name) in _alias_map():
+        return  # the reference substance keeps its name; pass this one as an object
+    _REGISTRY[sub.name] = sub
+
+
+def registered() -> dict[str, Substance]:
+    """Substances built from data in this session, by name (the latest of each name).
+
+    ``pp.substance(name)`` and everything that takes a name (routes, widgets) find them, after
+    the reference substances: a substance built under a reference name is reachable only as an
+    object.
+    """
+    return dict(_REGISTRY)
 
 
 def to_dict(sub: Substance) -> dict[str, Any]:

@@ -16,6 +16,8 @@ from .errors import OutOfRangeError, PropertyError
 
 __all__ = ["EOS", "fluid_names"]
 
+_STATE_CACHE = 4096  # remembered single-phase states per substance
+
 _PHASE_FLAG = {
     "liquid": CP.iphase_liquid,
     "vapor": CP.iphase_gas,
@@ -56,6 +58,9 @@ class EOS:
         self.p_triple = float(a.p())
         self.has_melting_line = bool(a.has_melting_line())
         self.calls = 0
+        # (T, p, phase) -> (h, s, rho): a route's corners are evaluated again on every analysis
+        # (a moved corner changes two legs and leaves the other states as they were)
+        self._states: dict[tuple[float, float, str], tuple[float, float, float]] = {}
 
     # -- saturation ---------------------------------------------------------------------------
     def _check_sat_T(self, T: float) -> None:
@@ -142,9 +147,13 @@ class EOS:
 
         The phase is imposed, so that states next to a boundary (and vapor below the triple-point
         temperature, extrapolated along the gas branch) are computed rather than refused.
+        Results are remembered (up to 4096 states; ``calls`` counts only real evaluations).
         """
         if phase not in _PHASE_FLAG:
             raise PropertyError(f"{self.name}: no equation of state for the {phase} phase")
+        known = self._states.get((T, p, phase))
+        if known is not None:
+            return known
         with self._lock:
             a = self._as
             try:
@@ -171,6 +180,9 @@ class EOS:
                 a.unspecify_phase()
         for v in out:
             self._finite(v, f"{phase} state at T = {T} K, p = {p} Pa")
+        if len(self._states) >= _STATE_CACHE:
+            self._states.clear()
+        self._states[(T, p, phase)] = out
         return out
 
     def state_DT(self, rho: float, T: float) -> tuple[float, float, float]:

@@ -176,7 +176,9 @@ def schema() -> dict[str, Any]:
 def _document(route: Route) -> dict[str, Any]:
     d = route.to_dict()
     sub = d["substance"]
-    if not isinstance(sub, str):
+    if not isinstance(sub, str) and getattr(sub, "source_data", None) is not None:
+        sub = sub.to_dict()  # built from data: its inputs travel with the route
+    elif not isinstance(sub, str):
         raise RouteFileError(
             f"the substance {sub!r} of this route is not a named substance: only routes of "
             f"named substances can be saved")
@@ -395,10 +397,19 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
         raise fail(f"version {version} was written by a newer phasepath; this one reads "
                    f"version {VERSION}", "version")
     for key in ("substance", "title", "notes"):
+        if key == "substance" and isinstance(data[key], dict):
+            continue  # a substance built from data (Substance.to_dict)
         if key in data and not isinstance(data[key], str):
             hint = " (in YAML, put quotes around it)" if key == "substance" else ""
             raise fail(f"{data[key]!r} is not text{hint}", key)
-    if not data["substance"].strip():
+    if isinstance(data["substance"], dict):
+        from .substances import Substance
+
+        try:
+            Substance.from_dict(data["substance"])
+        except PhasePathError as exc:
+            raise fail(str(exc), "substance") from None
+    elif not data["substance"].strip():
         raise fail("is empty: name a substance, such as 'CO2' or 'water'", "substance")
     elevation = data.get("elevation")
     if elevation is not None and (isinstance(elevation, bool)

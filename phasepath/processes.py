@@ -238,13 +238,17 @@ def flash_Tv(sub: Substance, T: float, v: float) -> StatePoint:
     return StatePoint(T, p, phase, form, h=h, s=s, rho=rho, model="reference EOS (CoolProp)")
 
 
-def trace(state_at: Callable[[float], StatePoint], x0: float, x1: float, geometric: bool
+def trace(state_at: Callable[[float], StatePoint], x0: float, x1: float, geometric: bool,
+          first: StatePoint | None = None
           ) -> tuple[list[StatePoint], list[tuple[StatePoint, StatePoint, int]]]:
     """Sample a curved leg and locate every change of phase along it.
 
     ``state_at(x)`` gives the state at the moving coordinate x. Returns the sampled states (for
     drawing) and, for each change of phase, the states just before and just after it, bracketed
     to 1e-12 relative in x by bisection on the phase, with the number of states evaluated.
+    ``first`` is the state the leg starts from, where it is known: at a corner on a boundary
+    (saturated vapor after "until fully vapor") ``state_at(x0)`` can land on the other side or on
+    a mixture with a fraction of 0 or 1, which would add a change of phase that is not there.
     """
     n = _SAMPLES
     if geometric and x0 > 0 and x1 > 0:
@@ -252,7 +256,7 @@ def trace(state_at: Callable[[float], StatePoint], x0: float, x1: float, geometr
     else:
         xs = [x0 + (x1 - x0) * k / n for k in range(n + 1)]
     xs[0], xs[-1] = x0, x1
-    states = [state_at(x) for x in xs]
+    states = [first if k == 0 and first is not None else state_at(x) for k, x in enumerate(xs)]
     events: list[tuple[StatePoint, StatePoint, int]] = []
     for k in range(n):
         a, sa, b, sb = xs[k], states[k], xs[k + 1], states[k + 1]

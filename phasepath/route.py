@@ -34,6 +34,7 @@ EVENTS = ("fully vapor", "fully liquid", "first liquid", "first vapor", "first s
 _DELTA = re.compile(r"^\s*([0-9]*\.?[0-9]+)\s*K\s+(superheat|subcooling)\s*$", re.IGNORECASE)
 
 _SAME = 1e-12  # relative: a leg shorter than this is a zero-length leg
+_ARRIVE = 1e-9  # fraction of the last leg, back from its end, at which its arrival side is read
 
 
 def _reraise(exc: PhasePathError, where: str, given: object) -> PhasePathError:
@@ -201,7 +202,7 @@ class Route:
             return getattr(self, kind)(**target)
         except TypeError:
             raise RouteError(
-                f"a {kind} leg does not take {', '.join(map(repr, target))}"
+                f"an {kind} leg does not take {', '.join(map(repr, target))}"
             ) from None
 
     def _constant(self, kind: str, prop: str, p: object) -> Route:
@@ -248,7 +249,11 @@ class Route:
         leg = self.end
         if leg.state is not None:
             return leg.state
-        phase, form = self.substance.classify(leg.T, leg.p)
+        T, p = leg.T, leg.p
+        if self.legs:  # a corner on a boundary takes the side the leg arrives from
+            T0, p0 = self.corners()[-2]
+            T, p = T + (T0 - T) * _ARRIVE, p + (p0 - p) * _ARRIVE
+        phase, form = self.substance.classify(T, p)
         return _processes().single_state(self.substance, leg.T, leg.p, phase, form)
 
     def _add(self, leg: Leg) -> Route:
@@ -408,6 +413,9 @@ def _resolve_event(sub: Substance, kind: str, T: float, p: float, until: str, wh
     T_t, p_t = sub.triple
     T_c, p_c = sub.critical
     vapor = sub.vapor
+    if text == "first solid" and sub.classify(T, p)[0] == "solid":
+        raise RouteError(f"{where}: {until!r} cannot be reached: the leg starts as solid "
+                         f"(T = {T:.6g} K, p = {p:.6g} Pa)")
     if text == "first solid":
         if kind == "isobar":
             from .processes import _melting_T, _T_on
@@ -437,6 +445,8 @@ def _resolve_event(sub: Substance, kind: str, T: float, p: float, until: str, wh
                 f"and the critical point ({p_c:.6g} Pa); the leg is at {p:.6g} Pa"
             )
         T_s = vapor.temperatures_at(p)[0][0]
+        if not m:
+            _check_side(until, text, T, T_s, T < T_s, "T", "K", where)
         if m:
             dT = float(m.group(1)) * (1 if m.group(2).lower() == "superheat" else -1)
             return T_s + dT, p, None, f"{m.group(1)} K {m.group(2).lower()} (T_sat = {T_s:.6g} K)"
@@ -450,5 +460,24 @@ def _resolve_event(sub: Substance, kind: str, T: float, p: float, until: str, wh
             f"the critical point ({T_c:.6g} K); the leg is at {T:.6g} K"
         )
     p_s = vapor.p_of_T(T)
+    _check_side(until, text, p, p_s, p > p_s, "p", "Pa", where)
     phase = "vapor" if text in ("fully vapor", "first liquid") else "liquid"
     return T, p_s, phase, f"{text} at p = {p_s:.6g} Pa"
+
+
+def _check_side(until: str, text: str, start: float, sat: float, liquid_side: bool, name: str,
+                unit: str, where: str) -> None:
+    """Refuse an event the leg moves away from: "first liquid" from the liquid side, etc.
+
+    ``liquid_side`` tells where the leg starts: below the saturation temperature on an isobar,
+    above the vapor pressure on an isotherm. A start on the curve is left to the zero-length check.
+    """
+    needs_liquid = text in ("fully vapor", "first vapor")
+    if abs(start - sat) <= 1e-9 * abs(sat) or liquid_side == needs_liquid:
+        return
+    side, other = ("vapor", "liquid") if needs_liquid else ("liquid", "vapor")
+    raise RouteError(
+        f"{where}: {until!r} cannot be reached: the leg starts on the {side} side "
+        f"({name} = {start:.6g} {unit}; saturation at {sat:.6g} {unit}), and {until!r} is "
+        f"approached from the {other} side"
+    )

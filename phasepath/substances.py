@@ -14,6 +14,7 @@ import difflib
 import math
 import numbers
 import re
+import threading
 from collections.abc import Callable, Mapping
 from functools import lru_cache
 from typing import Any
@@ -94,6 +95,10 @@ def substance(name: object) -> Substance:
     key = _key(name)
     resolved = _alias_map().get(key)
     if resolved is None:
+        from .custom import registered  # substances built from data in this session, by name
+
+        if name.strip() in registered():
+            return registered()[name.strip()]
         keys = _alias_map()
         close = difflib.get_close_matches(key, list(keys), n=4, cutoff=0.6)
         names: list[str] = []
@@ -101,7 +106,11 @@ def substance(name: object) -> Substance:
             if keys[c] not in names:
                 names.append(keys[c])
         raise UnknownSubstanceError(name, names[:3])
-    return _coolprop_substance(resolved)
+    with _LOADING:  # first use from several threads at once: one Substance, one CoolProp load
+        return _coolprop_substance(resolved)
+
+
+_LOADING = threading.RLock()
 
 
 @lru_cache(maxsize=None)
@@ -227,7 +236,7 @@ class Substance:
         return from_dict(data)
 
     def to_dict(self) -> dict[str, Any]:
-        """Plain data: ``{"name": ...}``, or the inputs of :meth:`from_data` for such a substance."""
+        """Plain data: ``{"name": ...}``, or the inputs of :meth:`from_data` for such one."""
         from .custom import to_dict
 
         return to_dict(self)

@@ -175,9 +175,24 @@ def convert(x: float, from_unit: str, to_unit: str, dimension: str) -> float:
     >>> convert(300.0, "K", "degC", "temperature")
     26.850000000000023
     """
+    scale, offset = _affine(from_unit, to_unit, dimension)
+    return float(x) * scale + offset
+
+
+@lru_cache(maxsize=256)
+def _affine(from_unit: str, to_unit: str, dimension: str) -> tuple[float, float]:
+    """(scale, offset) with to = scale * from + offset, from pint once per pair of units.
+
+    Every unit phasepath converts between is linear or affine (degC, degF); a pint quantity per
+    value made each results table cost milliseconds per cell.
+    """
     ureg = _registry()
     fu = _unit(from_unit, dimension, from_unit)
     tu = _unit(to_unit, dimension, to_unit)
     if fu == tu:
-        return float(x)
-    return float(ureg.Quantity(x, fu).to(tu).magnitude)
+        return 1.0, 0.0
+    zero = float(ureg.Quantity(0.0, fu).to(tu).magnitude)
+    if zero == 0.0:
+        return float(ureg.Quantity(1.0, fu).to(tu).magnitude), 0.0
+    span = 1e6  # offset units: the slope over a wide span, free of the offset's rounding
+    return (float(ureg.Quantity(span, fu).to(tu).magnitude) - zero) / span, zero

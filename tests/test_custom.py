@@ -20,12 +20,15 @@ CoolProp's reference equations of state:
 
 Tolerances (why they are what they are):
 
-* ``TOL_P_DATA`` = 0.3 % in pressure inside the data range, between 1 kPa and 0.9 p_c: the tabulated
+* ``TOL_P_DATA`` = 0.3 % in pressure inside the data range, between 5 kPa and 0.9 p_c: the tabulated
   correlations reproduce their source measurements to about 0.1-0.2 %, and the reference equations
   of state carry vapor-pressure uncertainties of the same order (both from memory). A boiling
   temperature is compared through the same tolerance, converted by the reference curve's slope:
   dT = 0.003 / (d ln p / dT). Observed worst cases: 0.22 % (toluene), 0.14 % (cyclohexane),
   0.11 % (n-hexane).
+* ``TOL_P_LOW`` = 2 % in the data range between 200 Pa and 5 kPa: measurements at such low pressures
+  are few and scatter by a percent or two (from memory); observed worst case 1.4 % (toluene at
+  0.23 kPa).
 * ``TOL_P_BRIDGE`` = 2 % where the curve is a bridge from the end of the data to the critical
   point (n-hexane above 365 K): an interpolation with no data, as the report warns.
 * ``TOL_T_MELT`` = 0.1 % of the melting temperature: the triple-point temperatures of the two
@@ -59,6 +62,7 @@ from chemicals.critical import Pc, Tc  # noqa: E402
 from chemicals.triple import Tt  # noqa: E402
 
 TOL_P_DATA = 0.003
+TOL_P_LOW = 0.02
 TOL_P_BRIDGE = 0.02
 TOL_T_MELT = 0.001
 
@@ -136,23 +140,24 @@ def test_boiling_temperatures_on_isobars_match_reference_eos(key: str) -> None:
     sub, ref = built(key)
     lo, hi = sub.vapor.T_valid
     checked = 0
-    for T in np.linspace(lo, hi, 9)[1:-1]:
+    for T in np.linspace(lo, hi, 12)[1:-1]:
         p = sub.vapor.p_of_T(float(T))
-        if not (1e3 <= p <= 0.9 * ref.critical[1]):
+        if not (200.0 <= p <= 0.9 * ref.critical[1]):
             continue
+        tol = TOL_P_DATA if p >= 5e3 else TOL_P_LOW
         c = _boiling_on_isobar(sub, p, float(T))
         (T_ref, _, _), = ref.vapor.temperatures_at(p)
-        assert abs(ref.vapor.p_of_T(c.T) / p - 1.0) < TOL_P_DATA, (key, p)
-        assert abs(c.T - T_ref) < TOL_P_DATA / _dlnp_dT(ref, T_ref), (key, p, c.T, T_ref)
-        checked += 1
+        assert abs(ref.vapor.p_of_T(c.T) / p - 1.0) < tol, (key, p)
+        assert abs(c.T - T_ref) < tol / _dlnp_dT(ref, T_ref), (key, p, c.T, T_ref)
+        checked += p >= 5e3
     assert checked >= 5
 
 
 @pytest.mark.parametrize("key", list(FLUIDS))
 def test_normal_boiling_point_matches_reference_eos(key: str) -> None:
     sub, ref = built(key)
-    c = _boiling_on_isobar(sub, 101325.0, 370.0)
     (T_ref, _, _), = ref.vapor.temperatures_at(101325.0)
+    c = _boiling_on_isobar(sub, 101325.0, T_ref)
     assert abs(c.T - T_ref) < TOL_P_DATA / _dlnp_dT(ref, T_ref)
 
 
@@ -369,3 +374,28 @@ def test_latent_heat_helper_refuses_what_it_cannot_know() -> None:
     L, model, note = approximate_latent_heat(sub, "melting", 200.0, 1e6, ("solid", None),
                                              ("liquid", None))
     assert L is None and model is None and note == "no enthalpy of fusion given"
+
+
+def test_route_file_embeds_a_substance_built_from_data(tmp_path) -> None:
+    io = pytest.importorskip("phasepath.io")
+    sub, _ = built("toluene")
+    route = pp.Route(sub, T=300.0, p=101325.0, title="embedded").isobar(T=420.0)
+    for fmt in ("json", "yaml"):
+        text = io.dumps_route(route, fmt)
+        again = io.loads_route(text, fmt)
+        assert again.substance.to_dict() == sub.to_dict()
+        assert again.analyze().crossings[0].T == pytest.approx(
+            route.analyze().crossings[0].T, rel=1e-12)
+    bad = io.dumps_route(route, "json").replace('"form": "2.5-5"', '"form": "2-5"')
+    with pytest.raises(pp.RouteFileError, match="substance"):
+        io.loads_route(bad, "json")
+
+
+def test_picked_by_name_after_reference_names() -> None:
+    sub = pp.Substance.from_data("Kestrel test solvent", critical=(560.0, 4.5e6),
+                                 vapor_points=[(300.0, 5e3), (350.0, 4e4)])
+    assert pp.substance("Kestrel test solvent") is sub
+    assert pp.Route("Kestrel test solvent", T=320.0, p=1e5).substance is sub
+    shadow = pp.Substance.from_data("toluene", critical=(560.0, 4.5e6),
+                                    vapor_points=[(300.0, 5e3), (350.0, 4e4)])
+    assert pp.substance("toluene") is not shadow  # a reference name keeps its substance

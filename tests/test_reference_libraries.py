@@ -61,7 +61,8 @@ def test_vaporization_latent_heat_vs_iapws95(T):
     """Latent heat of a vaporization crossing equals h'' - h' of iapws.IAPWS95 (1e-7: both are
     IAPWS-95; the tolerance is the iterative saturation solution of each side)."""
     p = WATER.vapor.p_of_T(T)
-    report = pp.Route("water", T=T - 2.0, p=p).isobar(T=T + 2.0).analyze()
+    T0 = max(T - 2.0, 0.5 * (T + 273.16))  # start as liquid, above the melting curve
+    report = pp.Route("water", T=T0, p=p).isobar(T=T + 2.0).analyze()
     (c,) = report.crossings
     ref = (IAPWS95(T=c.T, x=1).h - IAPWS95(T=c.T, x=0).h) * 1e3
     assert c.latent_heat == pytest.approx(ref, rel=1e-7)
@@ -139,13 +140,19 @@ def _iapws_region(T: float, p: float) -> str | None:
     if p < 1e3:  # below IF97's lower pressure bound in iapws: under the saturation curve
         return "vapor" if T > Tc or p < _PSat_T(T) * MPa else "liquid"
     name = IAPWS97(T=T, P=p / MPa).phase
-    return {"Liquid": "liquid", "Compressible liquid": "liquid", "Vapour": "vapor",
-            "Gas": "vapor", "Supercritical fluid": "supercritical"}[name]
+    return {
+        "Liquid": "liquid",
+        "Compressible liquid": "liquid",
+        "Vapour": "vapor",
+        "Gas": "vapor",
+        "Supercritical fluid": "supercritical",
+    }[name]
 
 
 # IF97 covers 273.15-1073.15 K up to 100 MPa; the solid checks need no IF97 call.
-GRID = [(float(T), float(p)) for T in np.linspace(60.0, 1070.0, 23)
-        for p in np.geomspace(1.0, 1e9, 23)]
+GRID = [
+    (float(T), float(p)) for T in np.linspace(60.0, 1070.0, 23) for p in np.geomspace(1.0, 1e9, 23)
+]
 
 
 def test_water_phase_grid_vs_iapws_region_logic():
@@ -169,8 +176,19 @@ def test_water_phase_grid_vs_iapws_region_logic():
 # -- chemicals: triple and critical points from non-CoolProp compilations -------------------------
 # name as typed by a user, chemicals' identifier.
 FLUIDS = [
-    "water", "carbon dioxide", "nitrogen", "argon", "methane", "ammonia", "oxygen", "ethane",
-    "krypton", "xenon", "carbon monoxide", "sulfur dioxide", "ethylene",
+    "water",
+    "carbon dioxide",
+    "nitrogen",
+    "argon",
+    "methane",
+    "ammonia",
+    "oxygen",
+    "ethane",
+    "krypton",
+    "xenon",
+    "carbon monoxide",
+    "sulfur dioxide",
+    "ethylene",
 ]
 
 

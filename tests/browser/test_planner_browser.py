@@ -24,9 +24,9 @@ pytestmark = pytest.mark.browser
 _CALIBRATE = """() => {
   // Each tick's screen position is the translation of its own coordinate system; along an axis
   // only one of the two coordinates changes from tick to tick.
-  const fig = document.querySelector('.pp-diagram svg.svg-figure');
+  const fig = document.querySelector('.pp-diagram');
   const out = {x: [], y: []};
-  for (const axis of fig.querySelectorAll('g.axis')) {
+  for (const axis of fig.querySelectorAll('svg.svg-background g.axis')) {
     const ticks = [];
     for (const tick of axis.querySelectorAll('g.tick')) {
       const label = tick.querySelector('text');
@@ -40,7 +40,7 @@ _CALIBRATE = """() => {
     const key = spreadE > spreadF ? 'x' : 'y';
     for (const t of ticks) out[key].push({text: t.text, px: key === 'x' ? t.e : t.f});
   }
-  const area = fig.querySelector('rect.plotarea_events').getBoundingClientRect();
+  const area = fig.querySelector('svg.svg-figure rect.plotarea_events').getBoundingClientRect();
   out.area = {left: area.left, top: area.top, width: area.width, height: area.height};
   return out;
 }"""

@@ -1,0 +1,364 @@
+"""Write the worked-plan notebooks of this folder from the cell texts below, then run them.
+
+    python notebooks/build_notebooks.py            # write and execute (saves reference outputs)
+    python notebooks/build_notebooks.py --no-run   # write only
+
+The executed outputs saved in each notebook are the references that
+``pytest --nbval --nbval-current-env --nbval-sanitize-with phasepath/nbval_sanitize.cfg notebooks/``
+compares against. Every scenario (companies, vessels, numbers) is invented for these demos.
+"""
+
+from __future__ import annotations
+
+import sys
+from pathlib import Path
+
+HERE = Path(__file__).resolve().parent
+
+SAFETY = (
+    "> **Safety.** phasepath is a planning aid, not a safety assessment. {hazards} "
+    "Follow local codes, site procedures and licensed engineering practice; the flags below are "
+    "prompts for the review, not a substitute for one."
+)
+
+SETUP = """\
+import phasepath as pp
+from phasepath.cli import format_report  # fixed-format text: the same on every machine
+"""
+
+NOTEBOOKS: dict[str, list[tuple[str, str]]] = {}
+
+# -- 1. supercritical CO2 extraction vessel ------------------------------------------------------
+NOTEBOOKS["co2_extraction_vessel.ipynb"] = [
+    ("md", """\
+# Charging and venting a supercritical-CO₂ extraction vessel
+
+**Scenario (invented for this demo).** *Quillmere Botanicals* runs a 24-litre extraction vessel,
+**EX-2**, rated 350 bar at 100 °C. CO₂ comes from a cylinder manifold at 20 °C and 50 bar, is
+compressed (with intercooling, taken as isothermal) to 300 bar, and heated to the extraction
+temperature of 50 °C. After the run the vessel is vented to the atmosphere through a
+needle valve.
+
+**Why plan it.** On the way up the CO₂ condenses in the compressor discharge and then goes
+supercritical in the heater; on the way down the valve throttles it across the critical
+region into the two-phase dome and, below 5.18 bar, into **dry ice**. Dry ice in a vent line
+can plug it and then let go. We want every crossing, with its T and p, and a vent plan that
+keeps the solid out of the valve."""),
+    ("md", SAFETY.format(hazards=(
+        "High-pressure CO₂ can burst equipment; vented CO₂ displaces oxygen and can asphyxiate "
+        "in enclosed or low-lying spaces; dry ice and cold gas cause cold burns and can plug "
+        "relief paths."))),
+    ("code", SETUP),
+    ("md", """\
+## Plan A: charge, heat, vent straight to atmosphere
+
+Legs: compress at 20 °C to 300 bar (isotherm), heat to 50 °C at 300 bar (isobar), then vent
+through the valve to 1 atm (constant enthalpy: a throttle, no heat and no work). The vent leg
+models the gas passing the valve at the start of the vent, when the vessel is still at its
+run conditions."""),
+    ("code", """\
+plan_a = (
+    pp.Route("CO2", T="20 degC", p="50 bar", title="EX-2 plan A: vent straight down")
+    .isotherm(p="300 bar")
+    .isobar(T="50 degC")
+    .isenthalp(p="1 atm")
+)
+report_a = plan_a.analyze()
+print(format_report(report_a, "degC", "bar"))"""),
+    ("md", """\
+The vent leg ends at −78.5 °C as solid plus vapor: the throttle crosses the critical region,
+enters the liquid–vapor dome, and reaches the triple point (−56.6 °C, 5.18 bar) where dry ice
+forms. Pre-heating the vessel contents does not by itself help, as plan B shows."""),
+    ("code", """\
+plan_b = (
+    pp.Route("CO2", T="50 degC", p="300 bar", title="EX-2 plan B: heat to 95 degC, then vent")
+    .isobar(T="95 degC")
+    .isenthalp(p="1 atm")
+)
+print(format_report(plan_b.analyze(), "degC", "bar"))"""),
+    ("md", """\
+## Plan C: staged letdown with reheat
+
+Throttle in two stages, with a heater between them: first to 40 bar, reheat to 60 °C at 40 bar,
+then throttle to atmosphere. The table shows whether the second valve still sees a solid."""),
+    ("code", """\
+plan_c = (
+    pp.Route("CO2", T="50 degC", p="300 bar", title="EX-2 plan C: staged letdown with reheat")
+    .isobar(T="95 degC")
+    .isenthalp(p="40 bar")
+    .isobar(T="60 degC")
+    .isenthalp(p="1 atm")
+)
+report_c = plan_c.analyze()
+print(format_report(report_c, "degC", "bar"))"""),
+    ("code", """\
+# Which vent legs form a solid? (deposition into dry ice, or a crossing flagged for solids)
+for name, report in (("A", report_a), ("B", plan_b.analyze()), ("C", report_c)):
+    solid = [c for c in report.crossings if "solid" in c.to_phase]
+    where = ", ".join(f"leg {c.step} at {c.T - 273.15:.2f} degC" for c in solid) or "none"
+    print(f"plan {name}: solid forms on {where}")"""),
+    ("md", """\
+## Draw and adjust it in the planner
+
+The planner widget shows plan C on the CO₂ diagram; drag a corner or type a value to try
+other letdown pressures, and save the route as a file for the review."""),
+    ("code", """\
+planner = pp.widgets.RoutePlanner(route=plan_c)
+planner"""),
+    ("code", """\
+from pathlib import Path
+
+Path("routes").mkdir(exist_ok=True)
+saved = plan_c.save("routes/ex2_staged_letdown.yaml")
+print(saved.read_text())
+assert pp.Route.load(saved).to_dict() == plan_c.to_dict()"""),
+    ("md", """\
+## Results and cautions
+
+* Plans A and B form dry ice at the valve on the way to 1 atm. Plan C forms no solid: its
+  first valve ends as vapor at 40 bar, and the reheated gas stays vapor through the second.
+* Every vent leg passes close to the critical point (31 °C, 73.8 bar): expect large swings in
+  density and flow; size the heater for the worst case, not the average.
+* The vent model is a single throttle from a fixed upstream state. As the vessel empties its
+  own temperature and pressure fall; a sealed-vessel blowdown is not modelled here.
+* Vent outdoors or to a ducted stack, monitor CO₂ in the room, and keep relief paths free of
+  solids. Defer to local codes and licensed practice."""),
+]
+
+# -- 2. freeze-drying below the triple point ----------------------------------------------------
+NOTEBOOKS["freeze_drying_cycle.ipynb"] = [
+    ("md", """\
+# A freeze-drying cycle below water's triple point
+
+**Scenario (invented for this demo).** *Fenwright Biologics* dries an aqueous buffer in the
+shelf freeze dryer **LY-3**. The cycle: freeze the filled vials at atmospheric pressure to
+−45 °C, pull the chamber down to 13 Pa, raise the shelves to −20 °C for primary drying, then
+to +25 °C for secondary drying.
+
+**Why plan it.** Primary drying works only if the ice **sublimes** rather than melts: the
+chamber pressure must stay below water's triple-point pressure (611.657 Pa) and below the ice
+vapour pressure at the product temperature. We want the exact temperature at which the ice
+starts to sublime at the chosen chamber pressure, and the heat the shelves must supply per
+kilogram of ice.
+
+**Simplification, stated.** The product is modelled as pure water. Solutes lower the freezing
+point and set a collapse temperature that this pure-substance model does not know."""),
+    ("md", SAFETY.format(hazards=(
+        "Vacuum chambers can implode; refrigeration and condenser surfaces are cold enough to "
+        "burn skin; the condenser's refrigerant and any cryogen used need their own reviews."))),
+    ("code", SETUP),
+    ("code", """\
+cycle = (
+    pp.Route("water", T="20 degC", p="1 atm", title="LY-3 cycle: freeze, evacuate, dry")
+    .isobar(T="-45 degC")      # freezing on the shelves at atmospheric pressure
+    .isotherm(p="13 Pa")       # chamber evacuation at the frozen temperature
+    .isobar(T="-20 degC")      # primary drying: shelves warmed at 13 Pa
+    .isobar(T="25 degC")       # secondary drying
+)
+report = cycle.analyze()
+print(format_report(report, "degC", "Pa"))"""),
+    ("md", """\
+The ice starts to sublime at the temperature where its vapour pressure equals the chamber
+pressure; above it the shelves supply the latent heat of sublimation. Checking the margin to
+the triple point: the chamber pressure must stay below it for the whole drying phase."""),
+    ("code", """\
+water = pp.substance("water")
+T_t, p_t = water.triple
+sub = next(c for c in report.crossings if c.kind == "sublimation")
+print(f"triple point of water:    {T_t - 273.15:.2f} degC, {p_t:.2f} Pa")
+print(f"sublimation at 13 Pa:     {sub.T - 273.15:.2f} degC")
+print(f"latent heat there:        {sub.latent_heat / 1e3:.0f} kJ/kg")
+print(f"chamber pressure margin:  {p_t / 13.0:.0f} times below the triple-point pressure")"""),
+    ("md", """\
+## What if the chamber pressure drifts up?
+
+A leaking door seal lets the chamber rise. At 700 Pa, above the triple-point pressure, the
+same shelf warming **melts** the ice instead: the product would collapse."""),
+    ("code", """\
+leak = (
+    pp.Route("water", T="-45 degC", p="700 Pa", title="LY-3 with a leaking seal (700 Pa)")
+    .isobar(T="-20 degC")
+    .isobar(T="25 degC")
+)
+for c in leak.analyze().crossings:
+    print(f"leg {c.step}: {c.kind:12s} at {c.T - 273.15:8.3f} degC, {c.p:.0f} Pa")"""),
+    ("md", "## The cycle in the planner"),
+    ("code", """\
+planner = pp.widgets.RoutePlanner(route=cycle, p_unit="Pa")
+planner"""),
+    ("md", """\
+## Results and cautions
+
+* At 13 Pa the ice sublimes near −40 °C; the shelves must then supply about 2.8 MJ per kg of
+  ice removed, the figure that sizes the shelf heating and the condenser.
+* The whole drying phase stays far below the triple-point pressure; a rise above 611.657 Pa
+  melts the product (see the leaking-seal case): alarm on chamber pressure.
+* Real formulations freeze below 0 °C and collapse above their own collapse temperature:
+  use measured product data for those limits. Defer to site procedures and licensed practice
+  for vacuum and refrigeration equipment."""),
+]
+
+# -- 3. high-pressure water processing ------------------------------------------------------------
+NOTEBOOKS["high_pressure_water.ipynb"] = [
+    ("md", """\
+# High-pressure water processing: ice VI and ice III re-entrance
+
+**Scenario (invented for this demo).** *Tessaline Foods* runs a 55-litre high-pressure
+processing vessel, **HP-7**, rated 650 MPa, with water as the pressure medium. Two plans are
+under review:
+
+1. a *chilled cycle*: packs at 5 °C pressed to 600 MPa, and a proposal to go to 700 MPa;
+2. a *pressure-assisted thaw*: frozen blocks at −20 °C pressed until they melt, warmed, then
+   released.
+
+**Why plan it.** Liquid water under a few hundred MPa freezes into the high-pressure ices (III,
+V, VI). Ice forming in the vessel or in the intensifier lines can stall a cycle or damage
+seals. On a cold isotherm the phase sequence is not monotonic: compressed ice Ih melts, and the
+liquid then **re-freezes** into ice III a little higher up."""),
+    ("md", SAFETY.format(hazards=(
+        "Vessels at hundreds of MPa store large energies: a seal or closure failure is "
+        "violent. Only trained staff should operate them, inside their rated envelope."))),
+    ("code", SETUP),
+    ("md", "## 1. Chilled cycle at 5 °C"),
+    ("code", """\
+chilled = pp.Route("water", T="5 degC", p="1 bar", title="HP-7 chilled cycle to 600 MPa")
+chilled.isotherm(p="600 MPa").isotherm(p="1 bar")
+print(format_report(chilled.analyze(), "degC", "MPa"))"""),
+    ("code", """\
+proposal = pp.Route("water", T="5 degC", p="1 bar", title="HP-7 proposal: 700 MPa at 5 degC")
+proposal.isotherm(p="700 MPa")
+report = proposal.analyze()
+print(format_report(report, "degC", "MPa"))"""),
+    ("md", """\
+At 5 °C the medium freezes into **ice VI** just below 700 MPa. The margin at 600 MPa, and the
+lowest temperature at which 700 MPa stays liquid, follow from the melting curve of ice VI:"""),
+    ("code", """\
+water = pp.substance("water")
+ice6 = next(b for b in water.boundaries if b.label == "melting (ice VI)")
+print(f"ice VI branch: {ice6.T_min - 273.15:.2f} degC to {ice6.T_max - 273.15:.2f} degC ({ice6.source})")
+print(f"ice VI melting pressure at 5 degC: {ice6.p_of_T(278.15) / 1e6:.1f} MPa")
+warm = [c for c in ice6.temperatures_at(700e6)]
+print(f"700 MPa stays liquid above {warm[0][0] - 273.15:.2f} degC")"""),
+    ("md", "## 2. Pressure-assisted thaw at −20 °C: ice III re-entrance"),
+    ("code", """\
+probe = pp.Route("water", T="-20 degC", p="1 bar", title="Isotherm at -20 degC to 300 MPa")
+probe.isotherm(p="300 MPa")
+print(format_report(probe.analyze(), "degC", "MPa"))"""),
+    ("md", """\
+The −20 °C isotherm melts ice Ih at about 194 MPa and re-freezes the liquid as **ice III**
+about 52 MPa higher. The thaw must hold the pressure inside that window. The plan: press to
+220 MPa, warm to 10 °C at that pressure, then release."""),
+    ("code", """\
+thaw = (
+    pp.Route("water", T="-20 degC", p="1 bar", title="HP-7 pressure-assisted thaw")
+    .isotherm(p="220 MPa")
+    .isobar(T="10 degC")
+    .isotherm(p="1 bar")
+)
+thaw_report = thaw.analyze()
+print(format_report(thaw_report, "degC", "MPa"))"""),
+    ("code", """\
+planner = pp.widgets.RoutePlanner(route=thaw, p_unit="MPa")
+planner"""),
+    ("md", """\
+## Results and cautions
+
+* 600 MPa at 5 °C stays liquid; the 700 MPa proposal freezes the medium into ice VI and is
+  rejected unless the medium is held warmer than the temperature printed above.
+* The thaw window at −20 °C is narrow (about 194 to 246 MPa): control the pressure, not just
+  the set point, and expect ice III if it overshoots.
+* Latent heats of the high-pressure ices are not modelled in phasepath (the table says so); do
+  not size heating or cooling from this plan for those legs.
+* Operate only within the vessel's rated pressure and temperature; defer to the
+  manufacturer's instructions, local codes and licensed practice."""),
+]
+
+# -- 4. cryogenic fill with argon and nitrogen ----------------------------------------------------
+NOTEBOOKS["cryogenic_fill.ipynb"] = [
+    ("md", """\
+# A cryogenic fill: condensing argon against liquid nitrogen
+
+**Scenario (invented for this demo).** *Brackwater Cryogenics* fills a 180-litre liquid-argon
+dewar, **DW-180**, by condensing argon gas in a coil immersed in a liquid-nitrogen bath. The
+argon arrives at 20 °C and 1.2 bar.
+
+**Why plan it.** Liquid nitrogen at atmospheric pressure boils at about −196 °C, while argon
+**freezes** near −189 °C. A coil that gets as cold as the bath fills with solid argon and
+blocks. The plan must find the bath pressure that keeps the coil wall above argon's freezing
+point while still condensing it."""),
+    ("md", SAFETY.format(hazards=(
+        "Liquid nitrogen and liquid argon cause cold burns and embrittle ordinary steels; "
+        "liquid trapped between closed valves can burst a line as it warms; both gases displace "
+        "oxygen and can asphyxiate without warning in enclosed spaces: use oxygen monitoring."))),
+    ("code", SETUP),
+    ("md", "## Argon cooled all the way to the bath temperature at 1 atm"),
+    ("code", """\
+too_cold = pp.Route("argon", T="20 degC", p="1.2 bar", title="DW-180: argon cooled to -195 degC")
+too_cold.isobar(T="-195 degC")
+print(format_report(too_cold.analyze(), "degC", "bar"))"""),
+    ("md", """\
+The argon condenses at −184.2 °C and then freezes at −189.3 °C. The bath must run warmer.
+The boiling temperature of the nitrogen bath rises with its pressure; the crossings of a
+nitrogen isobar give it directly:"""),
+    ("code", """\
+for bath in ("1 atm", "2 bar", "2.5 bar", "3 bar"):
+    n2 = pp.Route("nitrogen", T="-205 degC", p=bath).isobar(T="-150 degC")
+    boil = n2.analyze().crossings[0]
+    print(f"nitrogen bath at {bath:>7}: boils at {boil.T - 273.15:8.3f} degC")"""),
+    ("md", """\
+A bath held at 2.5 bar boils at about −187.2 °C: above argon's freezing point at 1.2 bar
+(−189.3 °C), and below its condensation point (−184.2 °C). The fill plan condenses and subcools the argon only to the
+bath temperature:"""),
+    ("code", """\
+fill = (
+    pp.Route("argon", T="20 degC", p="1.2 bar", title="DW-180 fill: bath at 2.5 bar")
+    .isobar(T="-187 degC")     # condensed in the coil, subcooled to just above the bath
+    .isenthalp(p="1.05 bar")    # let down into the dewar through the fill valve
+)
+fill_report = fill.analyze()
+print(format_report(fill_report, "degC", "bar"))"""),
+    ("code", """\
+planner = pp.widgets.RoutePlanner(route=fill)
+planner"""),
+    ("md", """\
+## Results and cautions
+
+* With the bath at 1 atm the coil freezes argon; hold the nitrogen bath at about 2.5 bar (a
+  back-pressure regulator on the bath vent) so the coil stays above −189.3 °C.
+* The heat removed per kilogram of argon in the coil is in the legs table: it sizes the
+  nitrogen boil-off.
+* The subcooled liquid passes the fill valve without flashing (liquid at both ends of leg 2).
+  A warmer coil outlet would flash part of it at the valve: size the dewar vent for that case.
+* Cryogens: cold burns, embrittlement, trapped-liquid overpressure and oxygen depletion. Use
+  oxygen monitors and relief valves on every section that can trap liquid; defer to local
+  codes, the gas supplier's instructions and licensed practice."""),
+]
+
+
+def build(run: bool = True) -> None:
+    import nbformat
+
+    for name, cells in NOTEBOOKS.items():
+        nb = nbformat.v4.new_notebook()
+        nb.metadata["kernelspec"] = {"name": "python3", "display_name": "Python 3",
+                                     "language": "python"}
+        nb.metadata["language_info"] = {"name": "python"}
+        for i, (kind, text) in enumerate(cells):
+            cell = (nbformat.v4.new_markdown_cell(text) if kind == "md"
+                    else nbformat.v4.new_code_cell(text))
+            cell["id"] = f"{Path(name).stem[:20]}-{i:02d}"
+            nb.cells.append(cell)
+        if run:
+            from nbclient import NotebookClient
+
+            NotebookClient(nb, timeout=300, kernel_name="python3",
+                           resources={"metadata": {"path": str(HERE)}}).execute()
+            for cell in nb.cells:
+                cell.get("metadata", {}).pop("execution", None)
+        nb.metadata.pop("widgets", None)  # widget state is per run: not a reference output
+        nbformat.write(nb, HERE / name)
+        print(f"wrote {name}")
+
+
+if __name__ == "__main__":
+    build(run="--no-run" not in sys.argv[1:])
