@@ -25,6 +25,7 @@ What is measured
 5. Peak resident memory of a 1,000-route batch (``pp.analyze_many``) in a fresh process.
 """
 
+# ruff: noqa: E402, B023  (imports after the path fallback; closures are timed where made)
 from __future__ import annotations
 
 import argparse
@@ -76,7 +77,7 @@ def water_route() -> pp.Route:
     return r
 
 
-# -- timing ------------------------------------------------------------------------------------------
+# -- timing ----------------------------------------------------------------------------------------
 def forget(sub: pp.Substance) -> Callable[[], None]:
     """A setup step that makes the next analysis cold: no cached legs, crossings or states."""
     def clear() -> None:
@@ -89,7 +90,7 @@ def forget(sub: pp.Substance) -> Callable[[], None]:
 
 def median_time(fn: Callable[[], object], repeats: int, setup: Callable[[], object] | None = None
                 ) -> float:
-    """Median wall time of ``fn()`` [s] over ``repeats`` runs (``setup`` runs untimed before each)."""
+    """Median wall time of ``fn()`` [s] over ``repeats`` runs (``setup`` untimed before each)."""
     times = []
     for _ in range(repeats):
         if setup is not None:
@@ -166,10 +167,11 @@ class Scan:
         T_c, p_c = self.sub.critical
         sc = (Ts > T_c) & (ps > p_c)
         for i in np.nonzero(sc[1:] != sc[:-1])[0]:
-            out.append(("critical", float(xs[i]), float(xs[i + 1]), None, kind))  # type: ignore[arg-type]
+            # the critical isotherm or isobar: no look-up, the bracket is found from coordinates
+            out.append(("critical", float(xs[i]), float(xs[i + 1]), None, kind))  # type: ignore
         return out, lookups
 
-    def route(self, route: pp.Route) -> tuple[list[tuple[int, str, float, float, Callable, str]], int]:
+    def route(self, route: pp.Route) -> tuple[list[tuple], int]:
         corners = route.corners()
         found, total = [], 0
         for i, leg in enumerate(route.legs):
@@ -200,7 +202,7 @@ def accuracy(route: pp.Route, report: pp.Report, scan: Scan
     corners = route.corners()
     err_mid, err_lin, err_pp = [], [], []
     matched = 0
-    for step, label, xa, xb, f, kind in found:
+    for step, _label, xa, xb, f, kind in found:
         leg_T, leg_p = corners[step]  # end corner: its fixed coordinate equals the leg's
         fixed = leg_p if kind == "isobar" else leg_T
         x_ref = exact_root(kind, fixed, f, xa, xb, sub)
@@ -262,9 +264,9 @@ def count_evaluations(route: pp.Route) -> dict[str, float]:
     }
 
 
-# -- sections ----------------------------------------------------------------------------------------
+# -- sections --------------------------------------------------------------------------------------
 def section_routes(repeats: int, scan_repeats: int) -> list[str]:
-    lines = ["", "1. Ten-leg routes: phasepath against a dense scan of 2,000 points per leg", ""]
+    lines = ["", "1-2. Ten-leg routes against a dense scan (2,000 points per leg); evaluations", ""]
     for make in (co2_route, water_route):
         route = make()
         sub = route.substance

@@ -18,13 +18,14 @@ phase on either side of it, and a change of phase is never missed between candid
 
 Boundary rule (states exactly on a boundary)
 --------------------------------------------
-A corner of the route that lies exactly on a boundary takes the phase of the side from which the
-route arrives; the route's start takes the phase of the side it leaves into. A crossing exactly
-at a corner is recorded once, on the leg that ends there, and only if the phase before the corner
-differs from the phase after it (touching a boundary and turning back is not a crossing). A route
-that ends on a boundary records no crossing there. Candidates closer than 1e-9 (relative) along a
-leg are one point, so a leg running through the triple point changes phase there directly (solid ->
-vapor on the triple-point isobar: one sublimation, not a melting and a vaporization).
+A crossing exactly at a corner of the route is recorded once, on the leg that ends there, and
+only if the phase before the corner differs from the phase after it (touching a boundary and
+turning back is not a crossing). That leg's end state is the state after the crossing, so its
+heat includes the latent heat, and the next leg starts from it. The route's start takes the
+phase of the side the first leg leaves into; a route that ends on a boundary ends in the phase
+from which it arrives and records no crossing there. Candidates closer than 1e-9 (relative) along
+a leg are one point, so a leg running through the triple point changes phase there directly
+(solid -> vapor on the triple-point isobar: one sublimation, not a melting and a vaporization).
 """
 
 from __future__ import annotations
@@ -163,7 +164,7 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
         end = leg.state if (leg.state is not None and state_key(leg.state) == end_key) else (
             _single(sub, walk.path[-1], end_key))
         heat, work, note = leg_heat_work(leg.kind, start, end, basis)
-        hazards = leg_hazards(sub, leg.kind, list(walk.path), found)
+        hazards = leg_hazards(sub, leg.kind, list(walk.path), found, leg.event)
         legs.append(LegSummary(step, leg.kind, start, end, heat, work, note, basis,
                                tuple(walk.path), hazards, leg.event))
         crossings += found

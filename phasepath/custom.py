@@ -14,7 +14,8 @@ Method
   points, a normal boiling point with an enthalpy of vaporization. Two measured points give the
   integrated Clausius-Clapeyron line; three or more are fitted by the Antoine form (least squares
   in ln p, the offset C by a bounded profile search), and the two-parameter Clausius-Clapeyron
-  enthalpy is reported alongside with its standard uncertainty and the residuals of both fits.
+  enthalpy is reported alongside with its standard uncertainty and the residuals of both fits
+  (the fits are in :mod:`phasepath.vapor_fits`; their names are re-exported here).
 * Each boundary carries the temperature range of its data (``Boundary.T_valid``). Between the end
   of the data and a given triple or critical point the vapor-pressure curve is bridged by a
   quadratic in ln p against 1/T that matches the data curve's value and slope at the end of the
@@ -55,11 +56,17 @@ import numpy as np
 from .boundaries import Boundary
 from .correlations import vapor_pressure as vp
 from .errors import NonFiniteError, OutOfRangeError, PhasePathError
-from .units import parse_pressure, parse_temperature
+from .vapor_fits import (  # the fits live there; their public names are re-exported here
+    _T,
+    VaporFit,
+    _p,
+    _points,
+    _signed,
+    fit_antoine,
+    fit_clausius_clapeyron,
+)
 
 if TYPE_CHECKING:  # pragma: no cover
-    import pandas as pd
-
     from .report import Crossing
     from .substances import Substance
 
@@ -98,245 +105,7 @@ _MOLAR_MASS = {"kg/mol": 1.0, "g/mol": 1e-3, "kg/kmol": 1e-3}
 _NUM = re.compile(r"^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*$")
 
 
-# -- fits -----------------------------------------------------------------------------------------
-@dataclass(frozen=True)
-class VaporFit:
-    """A vapor-pressure curve fitted to measured points, with its uncertainty and residuals.
-
-    Attributes
-    ----------
-    form : {"antoine", "clausius-clapeyron"}
-    params : dict
-        Antoine: ``A`` [-], ``B`` [K], ``C`` [K] for log10(p/Pa) = A - B/(T/K + C).
-        Clausius-Clapeyron: ``T_ref`` [K], ``p_ref`` [Pa], ``dH`` [J/mol].
-    stderr : dict
-        One standard uncertainty of each fitted parameter (NaN where the points leave no degree
-        of freedom to estimate it).
-    points : tuple of (T [K], p [Pa])
-    residuals : tuple of float
-        ln(p_measured / p_fitted) of each point (about the relative deviation).
-    """
-
-    form: str
-    params: dict[str, float]
-    stderr: dict[str, float]
-    points: tuple[tuple[float, float], ...]
-    residuals: tuple[float, ...]
-
-    @property
-    def dof(self) -> int:
-        """Degrees of freedom left: points minus fitted parameters."""
-        return len(self.points) - (3 if self.form == "antoine" else 2)
-
-    @property
-    def T_range(self) -> tuple[float, float]:
-        Ts = [t for t, _ in self.points]
-        return min(Ts), max(Ts)
-
-    @property
-    def rms(self) -> float:
-        """Root-mean-square residual in ln p (about the relative deviation)."""
-        return float(np.sqrt(np.mean(np.square(self.residuals))))
-
-    def pressure(self, T: float) -> float:
-        """The fitted curve [Pa] at T [K] (no range check: see ``T_range``)."""
-        q = self.params
-        if self.form == "antoine":
-            return vp.antoine(T, q["A"], q["B"], q["C"])
-        return vp.clausius_clapeyron(T, q["T_ref"], q["p_ref"], q["dH"])
-
-    def enthalpy(self, T: float | None = None) -> float:
-        """Enthalpy of vaporization [J/mol] the fit implies at T [K] (ideal gas).
-
-        For the two-parameter Clausius-Clapeyron fit it is the constant ``dH``; for Antoine it is
-        R T^2 ln(10) B / (T + C)^2, by default at the mean of 1/T of the points.
-        """
-        q = self.params
-        if self.form != "antoine":
-            return q["dH"]
-        if T is None:
-            T = 1.0 / float(np.mean([1.0 / t for t, _ in self.points]))
-        return vp.R * T * T * math.log(10.0) * q["B"] / (T + q["C"]) ** 2
-
-    @property
-    def enthalpy_stderr(self) -> float:
-        """One standard uncertainty of the Clausius-Clapeyron ``dH`` [J/mol] (NaN if unknown)."""
-        return self.stderr.get("dH", math.nan)
-
-    def table(self) -> pd.DataFrame:
-        """One row per point: T, measured p, fitted p, residual in percent."""
-        import pandas as pd
-
-        rows = [{"T [K]": T, "p measured [Pa]": p, "p fitted [Pa]": self.pressure(T),
-                 "residual [%]": 100.0 * math.expm1(r)}
-                for (T, p), r in zip(self.points, self.residuals, strict=True)]
-        return pd.DataFrame(rows)
-
-    def describe(self) -> str:
-        """One sentence for the substance's notes."""
-        lo, hi = self.T_range
-        n = len(self.points)
-        worst = max(range(n), key=lambda i: abs(self.residuals[i]))
-        spread = (f"rms residual {100 * self.rms:.2g} % of p, largest "
-                  f"{100 * math.expm1(self.residuals[worst]):+.2g} % at {self.points[worst][0]:g} K"
-                  if self.dof > 0 else "no degree of freedom left: residuals are zero by "
-                  "construction and the uncertainty is not estimated")
-        if self.form == "antoine":
-            q, s = self.params, self.stderr
-            return (f"Antoine fitted to {n} vapor points ({lo:g} K to {hi:g} K): "
-                    f"log10(p/Pa) = {q['A']:.6g} - {q['B']:.6g}/(T/K {_signed(q['C'])}) "
-                    f"(C ± {s['C']:.2g} K); {spread}.")
-        dh, sd = self.params["dH"], self.enthalpy_stderr
-        unc = f" ± {sd / 1e3:.2g}" if math.isfinite(sd) else ""
-        return (f"Two-parameter Clausius-Clapeyron fit of {n} vapor points ({lo:g} K to {hi:g} K): "
-                f"enthalpy of vaporization {dh / 1e3:.4g}{unc} kJ/mol (1 standard uncertainty); "
-                f"{spread}.")
-
-
-def _signed(x: float) -> str:
-    return f"{'+' if x >= 0 else '-'} {abs(x):.5g}"
-
-
-def _points(points: Sequence[Sequence[object]], what: str = "vapor_points"
-            ) -> tuple[tuple[float, float], ...]:
-    out = []
-    try:
-        items = list(points)
-    except TypeError:
-        raise PhasePathError(f"{what} = {points!r} is not a list of (T, p) pairs") from None
-    for i, item in enumerate(items):
-        try:
-            T, p = item  # type: ignore[misc]
-        except (TypeError, ValueError):
-            raise PhasePathError(f"{what}[{i}] = {item!r} is not a (T, p) pair") from None
-        out.append((_T(T, f"{what}[{i}] temperature"), _p(p, f"{what}[{i}] pressure")))
-    out.sort()
-    for (t0, _), (t1, _) in zip(out[:-1], out[1:], strict=True):
-        if t1 - t0 <= 1e-9 * t1:
-            raise PhasePathError(f"{what}: two points share the temperature {t0:g} K")
-    return tuple(out)
-
-
-def fit_clausius_clapeyron(points: Sequence[Sequence[object]]) -> VaporFit:
-    """Least-squares line ln p = a - (dH/R)(1/T) through two or more (T [K], p [Pa]) points.
-
-    The reference temperature is the mean of 1/T of the points (so that ``T_ref`` and ``dH`` are
-    uncorrelated); standard uncertainties from the residual variance with n - 2 degrees of freedom.
-
-    Points on an exact line with dH = 35 kJ/mol (synthetic, known by construction):
-
-    >>> pts = [(T, vp.clausius_clapeyron(T, 320.0, 2e4, 35e3)) for T in (300.0, 320.0, 340.0)]
-    >>> fit = fit_clausius_clapeyron(pts)
-    >>> round(fit.enthalpy(), 6), fit.dof
-    (35000.0, 1)
-    """
-    pts = _points(points)
-    if len(pts) < 2:
-        raise PhasePathError("a Clausius-Clapeyron fit needs at least two vapor points")
-    x = np.array([1.0 / t for t, _ in pts])
-    y = np.log([p for _, p in pts])
-    xm = float(x.mean())
-    X = np.column_stack([np.ones_like(x), x - xm])
-    coef, *_ = np.linalg.lstsq(X, y, rcond=None)
-    res = y - X @ coef
-    n = len(pts)
-    dH = -coef[1] * vp.R
-    if n > 2:
-        s2 = float(res @ res) / (n - 2)
-        cov = s2 * np.linalg.inv(X.T @ X)
-        sd_dH = float(np.sqrt(cov[1, 1])) * vp.R
-        sd_p = float(np.sqrt(cov[0, 0])) * math.exp(coef[0])
-    else:
-        sd_dH = sd_p = math.nan
-    return VaporFit(
-        "clausius-clapeyron",
-        {"T_ref": 1.0 / xm, "p_ref": float(math.exp(coef[0])), "dH": float(dH)},
-        {"T_ref": 0.0, "p_ref": sd_p, "dH": sd_dH},
-        pts, tuple(float(r) for r in res),
-    )
-
-
-def fit_antoine(points: Sequence[Sequence[object]]) -> VaporFit:
-    """Least-squares Antoine curve log10(p/Pa) = A - B/(T/K + C) through three or more points.
-
-    Residuals are taken in ln p (equal relative weight for every point). For each trial C the
-    problem is linear in A and B; C is found by a grid scan and a bounded refinement of that
-    profile over -0.9 T_min < C < 0.5 T_min. Standard uncertainties from the Jacobian with
-    n - 3 degrees of freedom.
-
-    Raises :class:`~phasepath.errors.PhasePathError` if the best C lies on a bound (the points do
-    not determine the curvature).
-
-    >>> pts = [(T, vp.antoine(T, 9.0, 1300.0, -55.0)) for T in (290.0, 320.0, 350.0, 380.0)]
-    >>> q = fit_antoine(pts).params
-    >>> round(q["A"], 6), round(q["B"], 3), round(q["C"], 4)
-    (9.0, 1300.0, -55.0)
-    """
-    from scipy.optimize import minimize_scalar
-
-    pts = _points(points)
-    n = len(pts)
-    if n < 3:
-        raise PhasePathError("an Antoine fit needs at least three vapor points")
-    T = np.array([t for t, _ in pts])
-    y = np.log([p for _, p in pts])
-    lo, hi = -0.9 * T.min(), 0.5 * T.min()
-
-    def solve(C: float) -> tuple[np.ndarray, np.ndarray]:
-        X = np.column_stack([np.ones_like(T), -1.0 / (T + C)])
-        coef, *_ = np.linalg.lstsq(X, y, rcond=None)
-        return coef, y - X @ coef
-
-    def ssr(C: float) -> float:
-        r = solve(C)[1]
-        return float(r @ r)
-
-    grid = np.linspace(lo, hi, 241)
-    k = int(np.argmin([ssr(c) for c in grid]))
-    a, b = grid[max(k - 1, 0)], grid[min(k + 1, len(grid) - 1)]
-    C = float(minimize_scalar(ssr, bounds=(a, b), method="bounded",
-                              options={"xatol": 1e-9 * T.min()}).x)
-    if min(C - lo, hi - C) < 1e-3 * T.min():
-        raise PhasePathError(
-            f"the vapor points ({T.min():g} K to {T.max():g} K) do not determine the Antoine "
-            f"curvature: the best offset C lies on its bound ({C:.4g} K)"
-        )
-    coef, res = solve(C)
-    ln10 = math.log(10.0)
-    A, B = coef[0] / ln10, coef[1] / ln10
-    if n > 3:
-        J = np.column_stack([np.ones_like(T), -1.0 / (T + C), coef[1] / (T + C) ** 2])
-        cov = float(res @ res) / (n - 3) * np.linalg.inv(J.T @ J)
-        sd = np.sqrt(np.diag(cov))
-        stderr = {"A": sd[0] / ln10, "B": sd[1] / ln10, "C": float(sd[2])}
-    else:
-        stderr = {"A": math.nan, "B": math.nan, "C": math.nan}
-    return VaporFit("antoine", {"A": float(A), "B": float(B), "C": C},
-                    {k_: float(v) for k_, v in stderr.items()}, pts,
-                    tuple(float(r) for r in res))
-
-
 # -- parsing at the edge -------------------------------------------------------------------------
-def _T(value: object, what: str) -> float:
-    try:
-        T = parse_temperature(value)
-    except PhasePathError as exc:
-        raise type(exc)(f"{what}: {exc}") from None
-    if T <= 0.0:
-        raise OutOfRangeError(f"{what} = {value!r} is not above absolute zero")
-    return T
-
-
-def _p(value: object, what: str) -> float:
-    try:
-        p = parse_pressure(value)
-    except PhasePathError as exc:
-        raise type(exc)(f"{what}: {exc}") from None
-    if p <= 0.0:
-        raise OutOfRangeError(f"{what} = {value!r} is not a positive pressure")
-    return p
-
-
 def _scaled(value: object, what: str, units: dict[str, float], si: str,
             positive: bool = True) -> float:
     """A number (SI) or a string with one of a few units (J/mol, kJ/mol; kg/mol, g/mol)."""

@@ -44,10 +44,29 @@ def crossing_hazards(sub: Substance, leg_kind: str, c: Crossing) -> tuple[Hazard
 
 
 def leg_hazards(sub: Substance, kind: str, states: list[StatePoint],
-                crossings: list[Crossing]) -> tuple[Hazard, ...]:
-    """Flags on one leg from its sampled states and its crossings."""
+                crossings: list[Crossing], event: str = "") -> tuple[Hazard, ...]:
+    """Flags on one leg from its sampled states (the first is the leg's start), its crossings
+    and the event it ends on ("first solid at T = ...")."""
     out: list[Hazard] = []
     T_c, p_c = sub.critical
+    if kind in _FLOWING and event.startswith("first solid"):
+        name = _solid_name(sub)
+        end = states[-1]
+        out.append(Hazard(
+            "solid-formation",
+            f"the leg ends where {name} starts to form (T = {end.T:.5g} K, p = {end.p:.5g} Pa) "
+            f"on a flowing leg",
+            f"Any further cooling or a control overshoot forms {name}, which can plug lines, "
+            f"valves and relief devices. {_DEFER}",
+        ))
+    if kind == "isochore" and states[0].phase == "liquid" and states[-1].p > states[0].p * 1.001:
+        out.append(Hazard(
+            "liquid-full",
+            f"the sealed vessel is liquid-full from the start of the leg (T = {states[0].T:.5g} K, "
+            f"p = {states[0].p:.5g} Pa); the pressure climbs steeply with temperature",
+            f"A liquid-full vessel can burst on a small further warming: keep the fill "
+            f"below the rated fill ratio and protect it with a relief device. {_DEFER}",
+        ))
     if kind == "isochore":
         for c in crossings:
             if c.from_phase == "liquid+vapor" and c.to_phase == "liquid":

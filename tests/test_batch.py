@@ -18,7 +18,8 @@ IF97_TOL = 3e-4
 
 
 def _sweep() -> list[pp.Route]:
-    """Water isotherms from liquid at 60 bar down to vapor at 300 Pa, one per temperature (shuffled)."""
+    """Water isotherms from liquid at 60 bar down to vapor at 300 Pa, one per temperature
+    (in shuffled order)."""
     temps = [300.0, 440.0, 330.0, 410.0, 350.0, 280.0, 420.0, 390.0, 310.0, 370.0,
              430.0, 290.0, 340.0, 380.0, 320.0, 400.0, 360.0, 450.0]
     return [pp.Route("water", T=T, p=60e5, title=f"isotherm {T:g} K").isotherm(p=300.0)

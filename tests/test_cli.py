@@ -201,3 +201,17 @@ def test_console_script(files) -> None:
     proc = subprocess.run([sys.executable, "-m", "phasepath.cli", "analyze", "missing.yaml"],
                           capture_output=True, text=True, timeout=300)
     assert proc.returncode == 2 and "Traceback" not in proc.stderr
+
+
+def test_shipped_plan_still_matches_its_expected_results(capsys) -> None:
+    """The staged-letdown plan of the CO2 notebook against its saved results.
+
+    The expected file is a regression pin (written by ``phasepath analyze --format json``):
+    this is the check a team runs in CI to keep a plan under review.
+    """
+    from pathlib import Path
+
+    routes = Path(__file__).resolve().parents[1] / "notebooks" / "routes"
+    code, out, _ = run(capsys, "check", str(routes / "ex2_staged_letdown.yaml"),
+                       str(routes / "ex2_staged_letdown.expected.json"))
+    assert code == 0, out

@@ -63,9 +63,11 @@ def two_legs(planner: RoutePlanner) -> RoutePlanner:
 
 
 def test_core_does_not_import_widget_libraries():
-    code = ("import sys, phasepath as pp; pp.Route('CO2', T=250, p=2e6).isobar(T=300).analyze();"
-            "assert 'ipywidgets' not in sys.modules and 'bqplot' not in sys.modules;"
-            "pp.widgets; assert 'ipywidgets' in sys.modules")
+    code = (
+        "import sys, phasepath as pp; pp.Route('CO2', T=250, p=2e6).isobar(T=300).analyze();"
+        "assert 'ipywidgets' not in sys.modules and 'bqplot' not in sys.modules;"
+        "pp.widgets; assert 'ipywidgets' in sys.modules"
+    )
     subprocess.run([sys.executable, "-c", code], check=True)
 
 
@@ -147,8 +149,9 @@ def test_drag_keeps_neighbouring_legs_true_and_updates_report(co2):
 def test_drag_preview_moves_only_the_line(co2):
     two_legs(co2)
     report = co2.report
-    co2._dragging(co2.diagram.corners, {"event": "drag", "index": 2,
-                                        "point": {"x": 0.0, "y": 40.0}})
+    co2._dragging(
+        co2.diagram.corners, {"event": "drag", "index": 2, "point": {"x": 0.0, "y": 40.0}}
+    )
     assert co2.diagram.route_line.x[-1] == pytest.approx(0.0)
     assert co2.report is report  # no analysis while dragging
 

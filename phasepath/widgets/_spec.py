@@ -96,8 +96,9 @@ def add_corner(spec: Spec, T_text: str, p_text: str, kind: str) -> Spec:
     return new
 
 
-def move_corner(spec: Spec, index: int, T_text: str | None = None,
-                p_text: str | None = None) -> Spec:
+def move_corner(
+    spec: Spec, index: int, T_text: str | None = None, p_text: str | None = None
+) -> Spec:
     """Move corner ``index`` (0 = start) to the given T and/or p, keeping every leg true.
 
     The corner's leg takes the new value of the coordinate it moves along as its target. The
@@ -122,8 +123,10 @@ def move_corner(spec: Spec, index: int, T_text: str | None = None,
         elif legs[j - 1]["kind"] in _STRAIGHT or coord == "p":
             legs[j - 1][coord] = value
         else:
-            raise RouteError(f"the temperature of corner {index} follows from the "
-                             f"{legs[j - 1]['kind']} leg {j}: change that leg's pressure instead")
+            raise RouteError(
+                f"the temperature of corner {index} follows from the "
+                f"{legs[j - 1]['kind']} leg {j}: change that leg's pressure instead"
+            )
     return new
 
 
@@ -160,7 +163,7 @@ def _drop_zero_legs(spec: Spec) -> Spec:
     except ValueError:
         return spec
     keep = []
-    for leg, a, b in zip(spec["legs"], pts[:-1], pts[1:]):
+    for leg, a, b in zip(spec["legs"], pts[:-1], pts[1:], strict=False):
         if math.isclose(a[0], b[0], rel_tol=1e-12) and math.isclose(a[1], b[1], rel_tol=1e-12):
             continue
         keep.append(leg)

@@ -41,8 +41,14 @@ CSS = """
 </style>
 """
 
-_KIND_TEXT = {"start": "start", "isobar": "constant p", "isotherm": "constant T",
-              "isochore": "constant v", "isenthalp": "constant h", "isentrope": "constant s"}
+_KIND_TEXT = {
+    "start": "start",
+    "isobar": "constant p",
+    "isotherm": "constant T",
+    "isochore": "constant v",
+    "isenthalp": "constant h",
+    "isentrope": "constant s",
+}
 
 
 class LegList(W.VBox):
@@ -53,8 +59,9 @@ class LegList(W.VBox):
     show next to the row, or "" when the edit was taken.
     """
 
-    def __init__(self, on_edit: Callable[[int, str, str], str],
-                 on_delete: Callable[[int], str]) -> None:
+    def __init__(
+        self, on_edit: Callable[[int, str, str], str], on_delete: Callable[[int], str]
+    ) -> None:
         self._on_edit, self._on_delete = on_edit, on_delete
         self._rows: list[_Row] = []
         self._quiet = False
@@ -63,8 +70,9 @@ class LegList(W.VBox):
         super().__init__(children=[self.header], layout=W.Layout(min_width="330px"))
         self.add_class("pp-legs")
 
-    def show(self, corners: list[tuple[float, float]], kinds: list[str], T_unit: str,
-             p_unit: str) -> None:
+    def show(
+        self, corners: list[tuple[float, float]], kinds: list[str], T_unit: str, p_unit: str
+    ) -> None:
         """Write the corners (SI) into the rows in the display units."""
         self.header.value = (
             "<div class='pp-h'>Legs</div><div style='font-size:12px;color:#555'>"
@@ -74,7 +82,7 @@ class LegList(W.VBox):
             self._rows.append(_Row(len(self._rows), self))
         self._quiet = True
         try:
-            for i, ((T, p), kind) in enumerate(zip(corners, kinds)):
+            for i, ((T, p), kind) in enumerate(zip(corners, kinds, strict=True)):
                 row = self._rows[i]
                 row.label.value = f"<b>{'S' if i == 0 else i}</b> {_KIND_TEXT.get(kind, kind)}"
                 row.T.value = _num(convert(T, "K", T_unit, "temperature"), "T")
@@ -86,15 +94,20 @@ class LegList(W.VBox):
             self._quiet = False
         rows = [r.box for r in self._rows[: len(corners)]]
         if not corners:
-            rows = [W.HTML("<span style='font-size:12px;color:#555'>Click on the diagram to "
-                           "place the start, then click again for each leg, or type a start "
-                           "below.</span>")]
+            rows = [
+                W.HTML(
+                    "<span style='font-size:12px;color:#555'>Click on the diagram to "
+                    "place the start, then click again for each leg, or type a start "
+                    "below.</span>"
+                )
+            ]
         self.children = [self.header, *rows]
 
     def row_error(self, index: int, message: str) -> None:
         if 0 <= index < len(self._rows):
-            self._rows[index].error.value = (f"<span class='pp-err'>⚠ {html.escape(message)}"
-                                             "</span>" if message else "")
+            self._rows[index].error.value = (
+                f"<span class='pp-err'>⚠ {html.escape(message)}</span>" if message else ""
+            )
 
     @property
     def rows(self) -> list[_Row]:
@@ -117,14 +130,17 @@ class _Row:
         self.label = W.HTML(layout=W.Layout(width="120px"))
         self.T = W.Text(continuous_update=False, layout=W.Layout(width="92px"))
         self.p = W.Text(continuous_update=False, layout=W.Layout(width="92px"))
-        self.delete = W.Button(icon="trash", tooltip=f"delete corner {index or 'S'}",
-                               layout=W.Layout(width="34px"))
+        self.delete = W.Button(
+            icon="trash", tooltip=f"delete corner {index or 'S'}", layout=W.Layout(width="34px")
+        )
         self.error = W.HTML()
         self.T.observe(lambda ch: owner._edited(index, "T", ch["new"]), names="value")
         self.p.observe(lambda ch: owner._edited(index, "p", ch["new"]), names="value")
         self.delete.on_click(lambda _b: owner._deleted(index))
-        self.box = W.VBox([W.HBox([self.label, self.T, self.p, self.delete]), self.error],
-                          layout=W.Layout(margin="0 0 2px 0"))
+        self.box = W.VBox(
+            [W.HBox([self.label, self.T, self.p, self.delete]), self.error],
+            layout=W.Layout(margin="0 0 2px 0"),
+        )
 
 
 def _num(x: float, coord: str) -> str:
@@ -141,31 +157,45 @@ def crossing_tip(c: object, T_unit: str, p_unit: str, energy_unit: str) -> str:
     T = convert(c.T, "K", T_unit, "temperature")  # type: ignore[attr-defined]
     p = convert(c.p, "Pa", p_unit, "pressure")  # type: ignore[attr-defined]
     L = c.latent_heat  # type: ignore[attr-defined]
-    Ltext = ("no latent heat" if L is None else
-             f"latent heat {convert(L, 'J/kg', energy_unit, 'energy'):.4g} "
-             f"{UNIT_LABELS[energy_unit]}")
-    return (f"leg {c.step}: {c.kind} ({c.from_phase} → {c.to_phase}) at "  # type: ignore[attr-defined]
-            f"T = {T:.2f} {UNIT_LABELS[T_unit]}, p = {p:.5g} {UNIT_LABELS[p_unit]}; {Ltext}")
+    Ltext = (
+        "no latent heat"
+        if L is None
+        else f"latent heat {convert(L, 'J/kg', energy_unit, 'energy'):.4g} "
+        f"{UNIT_LABELS[energy_unit]}"
+    )
+    return (
+        f"leg {c.step}: {c.kind} ({c.from_phase} → {c.to_phase}) at "  # type: ignore[attr-defined]
+        f"T = {T:.2f} {UNIT_LABELS[T_unit]}, p = {p:.5g} {UNIT_LABELS[p_unit]}; {Ltext}"
+    )
 
 
 def results_html(report: Report | None, T_unit: str, p_unit: str, energy_unit: str) -> str:
     """The crossings table and the per-leg heat and work table, as HTML."""
     if report is None:
-        return ("<div class='pp-h'>Crossings</div><div style='font-size:13px;color:#555'>"
-                "Draw at least one leg to see where the route changes phase.</div>")
+        return (
+            "<div class='pp-h'>Crossings</div><div style='font-size:13px;color:#555'>"
+            "Draw at least one leg to see where the route changes phase.</div>"
+        )
     tl, pl, el = UNIT_LABELS[T_unit], UNIT_LABELS[p_unit], UNIT_LABELS[energy_unit]
     out = ["<div class='pp-h'>Crossings</div>"]
     if report.crossings:
-        out.append("<table class='pp-table pp-crossings'><tr><th>leg</th><th>transition</th>"
-                   f"<th>from → to</th><th>T [{tl}]</th><th>p [{pl}]</th>"
-                   f"<th>latent heat [{el}]</th></tr>")
+        out.append(
+            "<table class='pp-table pp-crossings'><tr><th>leg</th><th>transition</th>"
+            f"<th>from → to</th><th>T [{tl}]</th><th>p [{pl}]</th>"
+            f"<th>latent heat [{el}]</th></tr>"
+        )
         for k, c in enumerate(report.crossings):
             T = convert(c.T, "K", T_unit, "temperature")
             p = convert(c.p, "Pa", p_unit, "pressure")
-            L = ("—" if c.latent_heat is None
-                 else f"{convert(c.latent_heat, 'J/kg', energy_unit, 'energy'):.4g}")
-            tip = html.escape(crossing_tip(c, T_unit, p_unit, energy_unit)
-                              + (f" ({c.latent_heat_note})" if c.latent_heat_note else ""))
+            L = (
+                "—"
+                if c.latent_heat is None
+                else f"{convert(c.latent_heat, 'J/kg', energy_unit, 'energy'):.4g}"
+            )
+            tip = html.escape(
+                crossing_tip(c, T_unit, p_unit, energy_unit)
+                + (f" ({c.latent_heat_note})" if c.latent_heat_note else "")
+            )
             frm = c.from_phase + (f" ({c.from_form})" if c.from_form else "")
             to = c.to_phase + (f" ({c.to_form})" if c.to_form else "")
             out.append(
@@ -173,15 +203,19 @@ def results_html(report: Report | None, T_unit: str, p_unit: str, energy_unit: s
                 f"data-kind='{html.escape(c.kind)}' data-t='{T:.6g}' data-p='{p:.6g}' "
                 f"title='{tip}'><td class='num'>{c.step}</td><td>{html.escape(c.kind)}</td>"
                 f"<td>{html.escape(frm)} → {html.escape(to)}</td><td class='num'>{T:.2f}</td>"
-                f"<td class='num'>{p:.5g}</td><td class='num'>{L}</td></tr>")
+                f"<td class='num'>{p:.5g}</td><td class='num'>{L}</td></tr>"
+            )
         out.append("</table>")
     else:
         out.append("<div style='font-size:13px;color:#555'>No phase boundary is crossed.</div>")
-    out.append("<div class='pp-h'>Heat and work per leg</div>"
-               "<table class='pp-table pp-legsum'><tr><th>leg</th><th>kind</th>"
-               f"<th>start → end phase</th><th>heat in [{el}]</th><th>work in [{el}]</th>"
-               "<th>hazards</th><th>basis</th></tr>")
+    out.append(
+        "<div class='pp-h'>Heat and work per leg</div>"
+        "<table class='pp-table pp-legsum'><tr><th>leg</th><th>kind</th>"
+        f"<th>start → end phase</th><th>heat in [{el}]</th><th>work in [{el}]</th>"
+        "<th>hazards</th><th>basis</th></tr>"
+    )
     for leg in report.legs:
+
         def e(v: float | None) -> str:
             return "—" if v is None else f"{convert(v, 'J/kg', energy_unit, 'energy'):.4g}"
 
@@ -189,16 +223,21 @@ def results_html(report: Report | None, T_unit: str, p_unit: str, energy_unit: s
             f"leg {leg.step} ({leg.kind}): {convert(leg.start.T, 'K', T_unit, 'temperature'):.2f}"
             f" → {convert(leg.end.T, 'K', T_unit, 'temperature'):.2f} {tl}, "
             f"{convert(leg.start.p, 'Pa', p_unit, 'pressure'):.5g} → "
-            f"{convert(leg.end.p, 'Pa', p_unit, 'pressure'):.5g} {pl}")
+            f"{convert(leg.end.p, 'Pa', p_unit, 'pressure'):.5g} {pl}"
+        )
         out.append(
             f"<tr class='pp-leg' data-leg='{leg.step}' title='{tip}'><td class='num'>{leg.step}"
-            f"</td><td>{_KIND_TEXT.get(leg.kind, leg.kind)}</td><td>{html.escape(leg.start.phase)} → "
+            f"</td><td>{_KIND_TEXT.get(leg.kind, leg.kind)}</td>"
+            f"<td>{html.escape(leg.start.phase)} → "
             f"{html.escape(leg.end.phase)}</td><td class='num'>{e(leg.heat)}</td>"
             f"<td class='num'>{e(leg.work)}</td>{_hazard_cell(leg)}"
             f"<td style='font-size:11px;color:#555'>"
-            f"{html.escape(leg.note)}</td></tr>")
-    out.append("</table><div style='font-size:11px;color:#555'>Reversible steady flow per kg: "
-               "heat = ∫T ds, work = ∫v dp, heat + work = Δh.</div>")
+            f"{html.escape(leg.note)}</td></tr>"
+        )
+    out.append(
+        "</table><div style='font-size:11px;color:#555'>Reversible steady flow per kg: "
+        "heat = ∫T ds, work = ∫v dp, heat + work = Δh.</div>"
+    )
     return "".join(out)
 
 
@@ -211,38 +250,54 @@ def _hazard_cell(leg: object) -> str:
     return f"<td title='{tip}' style='color:#9a3412;font-weight:600'>⚠ {kinds}</td>"
 
 
-def cautions_html(sub: Substance, corners: list[tuple[float, float]],
-                  report: Report | None = None) -> str:
+def cautions_html(
+    sub: Substance, corners: list[tuple[float, float]], report: Report | None = None
+) -> str:
     """Plain cautions: the core's hazard flags on the route, then the substance and the
     conditions the route reaches."""
     items: list[str] = []
     if report is not None:
-        for h in [h for leg in report.legs for h in getattr(leg, "hazards", ())] + \
-                 [h for c in report.crossings for h in getattr(c, "hazards", ())]:
+        for h in [h for leg in report.legs for h in getattr(leg, "hazards", ())] + [
+            h for c in report.crossings for h in getattr(c, "hazards", ())
+        ]:
             if h.caution and h.caution not in items:
                 items.append(h.caution)
     p_max = max((p for _, p in corners), default=0.0)
     T_min = min((T for T, _ in corners), default=math.inf)
     T_max = max((T for T, _ in corners), default=-math.inf)
     if p_max > 1.5e5:
-        items.append(f"The route reaches {p_max / 1e5:.4g} bar: pressure equipment must be rated "
-                     "and relieved for it.")
+        items.append(
+            f"The route reaches {p_max / 1e5:.4g} bar: pressure equipment must be rated "
+            "and relieved for it."
+        )
     if T_min < 200.0:
-        items.append("Cryogenic temperatures: cold burns, embrittlement of ordinary steels, and "
-                     "pressure build-up as trapped liquid warms.")
+        items.append(
+            "Cryogenic temperatures: cold burns, embrittlement of ordinary steels, and "
+            "pressure build-up as trapped liquid warms."
+        )
     if T_max > 330.0:
         items.append("Hot surfaces, hot liquid and steam: scald and burn risk.")
     name = sub.name
     if name in ("CarbonDioxide", "Nitrogen", "Argon", "Helium", "Neon"):
-        items.append(f"{name} displaces air: asphyxiation risk in closed rooms; ventilate and "
-                     "monitor oxygen.")
+        items.append(
+            f"{name} displaces air: asphyxiation risk in closed rooms; ventilate and "
+            "monitor oxygen."
+        )
     if name == "CarbonDioxide":
-        items.append("Solid CO2 (dry ice) causes cold burns and sublimes to gas: never seal it in "
-                     "a closed vessel.")
+        items.append(
+            "Solid CO2 (dry ice) causes cold burns and sublimes to gas: never seal it in "
+            "a closed vessel."
+        )
     if name in ("Methane", "Hydrogen", "Ethane", "n-Propane", "n-Butane", "Ethylene"):
-        items.append(f"{name} is flammable: keep ignition sources away and follow hazardous-area "
-                     "rules.")
-    items.append("Results are model values for planning, not a safety assessment. Follow local "
-                 "codes, the equipment's ratings and licensed practice before any run.")
-    return ("<div class='pp-caution'><b>Cautions.</b> " + " ".join(html.escape(i) for i in items)
-            + "</div>")
+        items.append(
+            f"{name} is flammable: keep ignition sources away and follow hazardous-area rules."
+        )
+    items.append(
+        "Results are model values for planning, not a safety assessment. Follow local "
+        "codes, the equipment's ratings and licensed practice before any run."
+    )
+    return (
+        "<div class='pp-caution'><b>Cautions.</b> "
+        + " ".join(html.escape(i) for i in items)
+        + "</div>"
+    )

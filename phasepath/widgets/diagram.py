@@ -1,4 +1,4 @@
-"""The phase diagram figure: boundary curves, special points, region names, the route and its crossings.
+"""The phase diagram figure: boundary curves, special points, region names, the route, crossings.
 
 Temperature runs on a linear axis and pressure on a logarithmic one, both in the display units the
 planner is set to. The figure holds no state of its own: the planner hands it SI values (K, Pa) and
@@ -28,8 +28,12 @@ __all__ = ["PhaseDiagram", "STYLE", "to_display", "from_display"]
 STYLE: dict[str, dict[str, Any]] = {
     "vaporization": {"color": "#0b5fa5", "dash": "solid", "width": 2.5, "label": "vapor pressure"},
     "melting": {"color": "#b34700", "dash": "dashed", "width": 2.5, "label": "melting"},
-    "sublimation": {"color": "#2a7d5f", "dash": "dash_dotted", "width": 2.5,
-                    "label": "sublimation"},
+    "sublimation": {
+        "color": "#2a7d5f",
+        "dash": "dash_dotted",
+        "width": 2.5,
+        "label": "sublimation",
+    },
     "route": {"color": "#1d1d1f", "width": 3.0},
     "route_invalid": {"color": "#8a8a8a", "width": 2.0},
     "corner": {"fill": "#ffffff", "start": "#1d1d1f", "stroke": "#1d1d1f"},
@@ -84,39 +88,114 @@ class PhaseDiagram:
         self.sx = bq.LinearScale()
         self.sy = bq.LogScale()
         sc = {"x": self.sx, "y": self.sy}
-        self.ax = bq.Axis(scale=self.sx, label="", tick_format=".0f", grid_lines="dashed",
-                          grid_color="#e3e3e3", label_offset="36px")
-        self.ay = bq.Axis(scale=self.sy, side="left", label="", tick_format=".4~g",
-                          grid_lines="dashed", grid_color="#e3e3e3", label_offset="52px")
+        self.ax = bq.Axis(
+            scale=self.sx,
+            label="",
+            tick_format=".0f",
+            grid_lines="dashed",
+            grid_color="#e3e3e3",
+            label_offset="36px",
+        )
+        self.ay = bq.Axis(
+            scale=self.sy,
+            side="left",
+            label="",
+            tick_format=".4~g",
+            grid_lines="dashed",
+            grid_color="#e3e3e3",
+            label_offset="52px",
+        )
         empty = np.array([], dtype=float)
         self.curves: list[bq.Lines] = []  # rebuilt per substance
-        self.regions = bq.Label(x=empty, y=empty, text=[], scales=sc, colors=[STYLE["region"]["color"]],
-                                default_size=15, font_unit="px", font_weight="bold", align="middle",
-                                enable_hover=False, apply_clip=True)
-        self.route_line = bq.Lines(x=empty, y=empty, scales=sc, colors=[STYLE["route"]["color"]],
-                                   stroke_width=STYLE["route"]["width"], enable_hover=False)
-        self.triple = bq.Scatter(x=empty, y=empty, scales=sc, marker=STYLE["triple"]["marker"],
-                                 colors=[STYLE["triple"]["fill"]], stroke="#1d1d1f",
-                                 default_size=110, enable_hover=True, tooltip=W.HTML())
-        self.critical = bq.Scatter(x=empty, y=empty, scales=sc, marker=STYLE["critical"]["marker"],
-                                   colors=[STYLE["critical"]["fill"]], stroke="#1d1d1f",
-                                   stroke_width=2.0, default_size=90, enable_hover=True,
-                                   tooltip=W.HTML())
-        self.crossings = bq.Scatter(x=empty, y=empty, scales=sc, marker=STYLE["crossing"]["marker"],
-                                    colors=[STYLE["crossing"]["fill"]],
-                                    stroke=STYLE["crossing"]["stroke"], stroke_width=1.5,
-                                    default_size=110, enable_hover=True, tooltip=W.HTML())
-        self.corners = bq.Scatter(x=empty, y=empty, scales=sc, marker="circle",
-                                  colors=[STYLE["corner"]["fill"]], stroke=STYLE["corner"]["stroke"],
-                                  stroke_width=2.0, default_size=70, names=[], display_names=True,
-                                  enable_move=True, interactions={"click": "add"},
-                                  enable_hover=True, tooltip=W.HTML(), drag_size=1.6)
+        self.regions = bq.Label(
+            x=empty,
+            y=empty,
+            text=[],
+            scales=sc,
+            colors=[STYLE["region"]["color"]],
+            default_size=15,
+            font_unit="px",
+            font_weight="bold",
+            align="middle",
+            enable_hover=False,
+            apply_clip=True,
+        )
+        self.route_line = bq.Lines(
+            x=empty,
+            y=empty,
+            scales=sc,
+            colors=[STYLE["route"]["color"]],
+            stroke_width=STYLE["route"]["width"],
+            enable_hover=False,
+        )
+        self.triple = bq.Scatter(
+            x=empty,
+            y=empty,
+            scales=sc,
+            marker=STYLE["triple"]["marker"],
+            colors=[STYLE["triple"]["fill"]],
+            stroke="#1d1d1f",
+            default_size=110,
+            enable_hover=True,
+            tooltip=W.HTML(),
+        )
+        self.critical = bq.Scatter(
+            x=empty,
+            y=empty,
+            scales=sc,
+            marker=STYLE["critical"]["marker"],
+            colors=[STYLE["critical"]["fill"]],
+            stroke="#1d1d1f",
+            stroke_width=2.0,
+            default_size=90,
+            enable_hover=True,
+            tooltip=W.HTML(),
+        )
+        self.crossings = bq.Scatter(
+            x=empty,
+            y=empty,
+            scales=sc,
+            marker=STYLE["crossing"]["marker"],
+            colors=[STYLE["crossing"]["fill"]],
+            stroke=STYLE["crossing"]["stroke"],
+            stroke_width=1.5,
+            default_size=110,
+            enable_hover=True,
+            tooltip=W.HTML(),
+        )
+        self.corners = bq.Scatter(
+            x=empty,
+            y=empty,
+            scales=sc,
+            marker="circle",
+            colors=[STYLE["corner"]["fill"]],
+            stroke=STYLE["corner"]["stroke"],
+            stroke_width=2.0,
+            default_size=70,
+            names=[],
+            display_names=True,
+            enable_move=True,
+            interactions={"click": "add"},
+            enable_hover=True,
+            tooltip=W.HTML(),
+            drag_size=1.6,
+        )
         self.figure = bq.Figure(
-            marks=[self.regions, self.route_line, self.crossings, self.triple, self.critical, self.corners],
-            axes=[self.ax, self.ay], display_toolbar=False, animation_duration=0,
+            marks=[
+                self.regions,
+                self.route_line,
+                self.crossings,
+                self.triple,
+                self.critical,
+                self.corners,
+            ],
+            axes=[self.ax, self.ay],
+            display_toolbar=False,
+            animation_duration=0,
             fig_margin={"top": 16, "bottom": 48, "left": 72, "right": 16},
             layout=W.Layout(width="100%", height="460px", min_width="420px"),
-            padding_x=0.0, padding_y=0.0,
+            padding_x=0.0,
+            padding_y=0.0,
         )
         self.figure.add_class("pp-diagram")
         self.css = W.HTML(_CSS, layout=W.Layout(height="0px", overflow="hidden"))
@@ -141,27 +220,46 @@ class PhaseDiagram:
         self.curves = []
         for kind, _T, _p in self._boundary_si:
             st = STYLE[kind]
-            self.curves.append(bq.Lines(x=np.array([0.0, 1.0]), y=np.array([1.0, 2.0]), scales=sc,
-                                        colors=[st["color"]], line_style=st["dash"],
-                                        stroke_width=st["width"], enable_hover=False))
-        self.figure.marks = (self.curves + [self.regions, self.route_line, self.crossings,
-                                            self.triple, self.critical, self.corners])
+            self.curves.append(
+                bq.Lines(
+                    x=np.array([0.0, 1.0]),
+                    y=np.array([1.0, 2.0]),
+                    scales=sc,
+                    colors=[st["color"]],
+                    line_style=st["dash"],
+                    stroke_width=st["width"],
+                    enable_hover=False,
+                )
+            )
+        self.figure.marks = self.curves + [
+            self.regions,
+            self.route_line,
+            self.crossings,
+            self.triple,
+            self.critical,
+            self.corners,
+        ]
         self.redraw_static()
 
     def redraw_static(self) -> None:
         """Boundary curves, points and region names in the current units."""
         if self.substance is None:
             return
-        for line, (_kind, T, p) in zip(self.curves, self._boundary_si):
+        for line, (_kind, T, p) in zip(self.curves, self._boundary_si, strict=True):
             x, y = to_display(T, p, self.T_unit, self.p_unit)
             line.x, line.y = x, y
-        for mark, (name, T, p) in zip((self.triple, self.critical), self._special_si):
+        for mark, (name, T, p) in zip((self.triple, self.critical), self._special_si, strict=True):
             x, y = to_display([T], [p], self.T_unit, self.p_unit)
             mark.x, mark.y = x, y
-            mark.tooltip.value = (f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>"
-                                  f"{self.fmt_p(p)}</div>")
-        rx, ry = to_display([r[1] for r in self._region_si], [r[2] for r in self._region_si],
-                            self.T_unit, self.p_unit)
+            mark.tooltip.value = (
+                f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>{self.fmt_p(p)}</div>"
+            )
+        rx, ry = to_display(
+            [r[1] for r in self._region_si],
+            [r[2] for r in self._region_si],
+            self.T_unit,
+            self.p_unit,
+        )
         self.regions.x, self.regions.y = rx, ry
         self.regions.text = [r[0] for r in self._region_si]
         self.ax.label = f"Temperature [{UNIT_LABELS[self.T_unit]}]"
@@ -206,7 +304,10 @@ class PhaseDiagram:
             dT = 0.06 * (max(Ts + [T_hi]) - min(Ts + [T_lo]))
             T_lo, T_hi = min([T_lo] + [t - dT for t in Ts]), max([T_hi] + [t + dT for t in Ts])
             if ps:
-                p_lo, p_hi = min([p_lo] + [p / 2.0 for p in ps]), max([p_hi] + [p * 2.0 for p in ps])
+                p_lo, p_hi = (
+                    min([p_lo] + [p / 2.0 for p in ps]),
+                    max([p_hi] + [p * 2.0 for p in ps]),
+                )
         T_lo = max(T_lo, 1e-3)
         return T_lo, T_hi, p_lo, p_hi
 
@@ -226,7 +327,7 @@ class PhaseDiagram:
         return min(T0, T1), max(T0, T1), p0, p1
 
     def set_mode(self, mode: str) -> None:
-        """"draw" (clicks add corners) or "pan" (drag pans, wheel zooms)."""
+        """ "draw" (clicks add corners) or "pan" (drag pans, wheel zooms)."""
         self.figure.interaction = self._pan if mode == "pan" else None
         if mode == "pan":
             self.figure.add_class("pp-pan")
@@ -237,8 +338,9 @@ class PhaseDiagram:
     def set_route(self, corners: list[tuple[float, float]], valid: bool = True) -> None:
         """Draw the route through ``corners`` (SI) and its corner markers."""
         if corners:
-            x, y = to_display([c[0] for c in corners], [c[1] for c in corners],
-                              self.T_unit, self.p_unit)
+            x, y = to_display(
+                [c[0] for c in corners], [c[1] for c in corners], self.T_unit, self.p_unit
+            )
         else:
             x = y = np.array([], dtype=float)
         st = STYLE["route"] if valid else STYLE["route_invalid"]
@@ -250,20 +352,24 @@ class PhaseDiagram:
         with self.corners.hold_sync():
             self.corners.x, self.corners.y = x.astype(float), y.astype(float)
             self.corners.names = ["S"] + [str(i) for i in range(1, len(corners))]
-            self.corners.colors = ([STYLE["corner"]["start"]]
-                                   + [STYLE["corner"]["fill"]] * max(len(corners) - 1, 0))
+            self.corners.colors = [STYLE["corner"]["start"]] + [STYLE["corner"]["fill"]] * max(
+                len(corners) - 1, 0
+            )
 
     def preview_route(self, corners: list[tuple[float, float]]) -> None:
         """Move only the route line (while a corner is being dragged)."""
-        x, y = to_display([c[0] for c in corners], [c[1] for c in corners], self.T_unit, self.p_unit)
+        x, y = to_display(
+            [c[0] for c in corners], [c[1] for c in corners], self.T_unit, self.p_unit
+        )
         with self.route_line.hold_sync():
             self.route_line.x, self.route_line.y = x, y
 
     def set_crossings(self, points: list[tuple[float, float]]) -> None:
         """Mark each crossing (SI) on the diagram."""
         if points:
-            x, y = to_display([c[0] for c in points], [c[1] for c in points],
-                              self.T_unit, self.p_unit)
+            x, y = to_display(
+                [c[0] for c in points], [c[1] for c in points], self.T_unit, self.p_unit
+            )
         else:
             x = y = np.array([], dtype=float)
         with self.crossings.hold_sync():
@@ -271,12 +377,25 @@ class PhaseDiagram:
 
     def widgets(self) -> list[W.Widget]:
         """Every widget whose state a redraw may touch (for batched updates)."""
-        return [self.figure, self.sx, self.sy, self.ax, self.ay, self.route_line, self.corners,
-                self.crossings, self.triple, self.critical, self.regions, *self.curves]
+        return [
+            self.figure,
+            self.sx,
+            self.sy,
+            self.ax,
+            self.ay,
+            self.route_line,
+            self.corners,
+            self.crossings,
+            self.triple,
+            self.critical,
+            self.regions,
+            *self.curves,
+        ]
 
 
-def _region_positions(sub: Substance, window: tuple[float, float, float, float]
-                      ) -> list[tuple[str, float, float]]:
+def _region_positions(
+    sub: Substance, window: tuple[float, float, float, float]
+) -> list[tuple[str, float, float]]:
     """Where to write the four region names (SI), inside each region and the default window."""
     T_lo, T_hi, p_lo, p_hi = window
     T_t, p_t = sub.triple
@@ -294,12 +413,24 @@ def _region_positions(sub: Substance, window: tuple[float, float, float, float]
         p_l = max(p_l, 10 * sub.vapor.p_of_T(T_l))
     for b in sub.melting:
         if b.solid_side == "above" and b.T_min <= T_l <= b.T_max:
-            p_l = min(p_l, 10 ** (0.5 * (math.log10(max(sub.vapor.p_of_T(T_l), 1e-3))
-                                          + math.log10(b.p_of_T(T_l))))) if sub.vapor else p_l
+            p_l = (
+                min(
+                    p_l,
+                    10
+                    ** (
+                        0.5
+                        * (math.log10(max(sub.vapor.p_of_T(T_l), 1e-3)) + math.log10(b.p_of_T(T_l)))
+                    ),
+                )
+                if sub.vapor
+                else p_l
+            )
     out.append(("LIQUID", T_l, min(p_l, p_hi / 2)))
     # solid: left of the triple point
     T_s = T_lo + 0.35 * (T_t - T_lo) if T_t > T_lo else T_t
     out.append(("SOLID", T_s, 10 ** (0.5 * (lp_t + lp_c))))
     # supercritical: right of and above the critical point
-    out.append(("SUPERCRITICAL", T_c + 0.55 * (T_hi - T_c), 10 ** (lp_c + 0.5 * (math.log10(p_hi) - lp_c))))
+    out.append(
+        ("SUPERCRITICAL", T_c + 0.55 * (T_hi - T_c), 10 ** (lp_c + 0.5 * (math.log10(p_hi) - lp_c)))
+    )
     return out

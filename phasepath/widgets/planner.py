@@ -7,7 +7,8 @@ computes a crossing itself. Every change ends in one batched update of the figur
 and the tables (``hold_sync`` on each touched widget), so the page redraws once.
 
 >>> import phasepath as pp
->>> planner = pp.widgets.RoutePlanner(pp.Route("CO2", T="-20 degC", p="10 bar").isobar(T="20 degC"))
+>>> route = pp.Route("CO2", T="-20 degC", p="30 bar").isobar(T="20 degC")
+>>> planner = pp.widgets.RoutePlanner(route)
 >>> planner.report.crossings[0].kind
 'vaporization'
 """
@@ -30,7 +31,7 @@ from ..report import Report
 from ..route import Route
 from ..substances import substance as _substance
 from ..substances import substances as _substances
-from ..units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, convert, parse_quantity
+from ..units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, parse_quantity
 from . import _spec
 from .controls import CSS, LegList, cautions_html, crossing_tip, results_html
 from .diagram import STYLE, PhaseDiagram, from_display
@@ -76,8 +77,15 @@ class RoutePlanner(W.VBox):
     mode = tl.Enum(("draw", "pan"), "draw")
     message = tl.Unicode("")
 
-    def __init__(self, substance: Any = "CO2", route: Route | None = None, *,
-                 T_unit: str = "degC", p_unit: str = "bar", energy_unit: str = "kJ/kg") -> None:
+    def __init__(
+        self,
+        substance: Any = "CO2",
+        route: Route | None = None,
+        *,
+        T_unit: str = "degC",
+        p_unit: str = "bar",
+        energy_unit: str = "kJ/kg",
+    ) -> None:
         if isinstance(substance, Route):
             route, substance = substance, substance.substance
         if route is not None:
@@ -103,34 +111,60 @@ class RoutePlanner(W.VBox):
     # -- construction --------------------------------------------------------------------------
     def _build_controls(self) -> None:
         names = sorted(_substances(), key=str.lower)
-        self.picker = W.Combobox(options=names, ensure_option=False, continuous_update=False,
-                                 placeholder="type to filter…", description="Substance",
-                                 layout=W.Layout(width="260px"))
+        self.picker = W.Combobox(
+            options=names,
+            ensure_option=False,
+            continuous_update=False,
+            placeholder="type to filter…",
+            description="Substance",
+            layout=W.Layout(width="260px"),
+        )
         self.kind_toggle = W.ToggleButtons(
             options=[("auto", "auto"), ("constant T", "isotherm"), ("constant p", "isobar")],
-            value="auto", tooltips=["pick the kind from the click's direction",
-                                    "next leg holds the temperature (isotherm)",
-                                    "next leg holds the pressure (isobar)"],
-            style={"button_width": "92px"})
-        self.mode_toggle = W.ToggleButtons(options=[("draw", "draw"), ("pan/zoom", "pan")],
-                                           value="draw", style={"button_width": "80px"},
-                                           tooltips=["clicks add corners; drag a corner to move it",
-                                                     "drag to pan, scroll to zoom"])
-        self.fit_btn = W.Button(description="fit", icon="expand", tooltip="show the whole route",
-                                layout=W.Layout(width="70px"))
+            value="auto",
+            tooltips=[
+                "pick the kind from the click's direction",
+                "next leg holds the temperature (isotherm)",
+                "next leg holds the pressure (isobar)",
+            ],
+            style={"button_width": "92px"},
+        )
+        self.mode_toggle = W.ToggleButtons(
+            options=[("draw", "draw"), ("pan/zoom", "pan")],
+            value="draw",
+            style={"button_width": "80px"},
+            tooltips=[
+                "clicks add corners; drag a corner to move it",
+                "drag to pan, scroll to zoom",
+            ],
+        )
+        self.fit_btn = W.Button(
+            description="fit",
+            icon="expand",
+            tooltip="show the whole route",
+            layout=W.Layout(width="70px"),
+        )
         self.undo_btn = W.Button(description="undo", icon="undo", layout=W.Layout(width="80px"))
         self.redo_btn = W.Button(description="redo", icon="repeat", layout=W.Layout(width="80px"))
-        self.clear_btn = W.Button(description="clear", icon="eraser",
-                                  layout=W.Layout(width="80px"))
-        self.T_pick = W.Dropdown(options=[(_UNIT_TEXT[u], u) for u in TEMPERATURE_UNITS],
-                                 description="temperature", style={"description_width": "initial"},
-                                 layout=W.Layout(width="170px"))
-        self.p_pick = W.Dropdown(options=list(PRESSURE_UNITS), description="pressure",
-                                 style={"description_width": "initial"},
-                                 layout=W.Layout(width="160px"))
-        self.e_pick = W.Dropdown(options=list(ENERGY_UNITS), description="energy",
-                                 style={"description_width": "initial"},
-                                 layout=W.Layout(width="160px"))
+        self.clear_btn = W.Button(description="clear", icon="eraser", layout=W.Layout(width="80px"))
+        self.T_pick = W.Dropdown(
+            options=[(_UNIT_TEXT[u], u) for u in TEMPERATURE_UNITS],
+            description="temperature",
+            style={"description_width": "initial"},
+            layout=W.Layout(width="170px"),
+        )
+        self.p_pick = W.Dropdown(
+            options=list(PRESSURE_UNITS),
+            description="pressure",
+            style={"description_width": "initial"},
+            layout=W.Layout(width="160px"),
+        )
+        self.e_pick = W.Dropdown(
+            options=list(ENERGY_UNITS),
+            description="energy",
+            style={"description_width": "initial"},
+            layout=W.Layout(width="160px"),
+        )
         self.start_T = W.Text(placeholder="T, e.g. 25 degC", layout=W.Layout(width="120px"))
         self.start_p = W.Text(placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px"))
         self.start_btn = W.Button(description="place start", layout=W.Layout(width="110px"))
@@ -165,24 +199,55 @@ class RoutePlanner(W.VBox):
         self.diagram.crossings.on_hover(self._hover_crossing)
 
     def _layout(self) -> None:
-        bar = W.HBox([self.picker, self.kind_toggle, self.mode_toggle, self.fit_btn, self.undo_btn,
-                      self.redo_btn, self.clear_btn],
-                     layout=W.Layout(flex_flow="row wrap", align_items="center"))
-        units = W.HBox([W.HTML("<b>Units</b>&nbsp;&nbsp;"), self.T_pick, self.p_pick,
-                        self.e_pick], layout=W.Layout(align_items="center"))
-        self.start_box = W.VBox([W.HTML("<div class='pp-h'>Start state</div>"),
-                                 W.HBox([self.start_T, self.start_p, self.start_btn]),
-                                 self.start_msg])
-        side = W.VBox([self.start_box, self.legs],
-                      layout=W.Layout(flex="0 0 380px", padding="0 0 0 12px"))
-        plot = W.VBox([self.diagram.figure, self.legend, self.diagram.css],
-                      layout=W.Layout(flex="1 1 auto"))
-        export = W.HBox([W.HTML("<b>Export</b>&nbsp;"), self.downloads,
-                         W.HTML("&nbsp;diagram:&nbsp;"), self.png_btn, self.svg_btn],
-                        layout=W.Layout(align_items="center", flex_flow="row wrap"))
-        self.children = [self.style_html, bar, units, W.HBox([plot, side]), self.status,
-                         self.results,
-                         export, self.cautions]
+        bar = W.HBox(
+            [
+                self.picker,
+                self.kind_toggle,
+                self.mode_toggle,
+                self.fit_btn,
+                self.undo_btn,
+                self.redo_btn,
+                self.clear_btn,
+            ],
+            layout=W.Layout(flex_flow="row wrap", align_items="center"),
+        )
+        units = W.HBox(
+            [W.HTML("<b>Units</b>&nbsp;&nbsp;"), self.T_pick, self.p_pick, self.e_pick],
+            layout=W.Layout(align_items="center"),
+        )
+        self.start_box = W.VBox(
+            [
+                W.HTML("<div class='pp-h'>Start state</div>"),
+                W.HBox([self.start_T, self.start_p, self.start_btn]),
+                self.start_msg,
+            ]
+        )
+        side = W.VBox(
+            [self.start_box, self.legs], layout=W.Layout(flex="0 0 380px", padding="0 0 0 12px")
+        )
+        plot = W.VBox(
+            [self.diagram.figure, self.legend, self.diagram.css], layout=W.Layout(flex="1 1 auto")
+        )
+        export = W.HBox(
+            [
+                W.HTML("<b>Export</b>&nbsp;"),
+                self.downloads,
+                W.HTML("&nbsp;diagram:&nbsp;"),
+                self.png_btn,
+                self.svg_btn,
+            ],
+            layout=W.Layout(align_items="center", flex_flow="row wrap"),
+        )
+        self.children = [
+            self.style_html,
+            bar,
+            units,
+            W.HBox([plot, side]),
+            self.status,
+            self.results,
+            export,
+            self.cautions,
+        ]
 
     # -- public --------------------------------------------------------------------------------
     def undo(self) -> None:
@@ -318,9 +383,14 @@ class RoutePlanner(W.VBox):
             Ts, ps = self._point_text(x[-1], y[-1])
             self._add(Ts, ps, None)
         elif len(x) == len(shown):
-            moved = [i for i, (a, b) in enumerate(zip(zip(x, y), shown))
-                     if not (math.isclose(a[0], b[0], rel_tol=1e-12, abs_tol=1e-12)
-                             and math.isclose(a[1], b[1], rel_tol=1e-12))]
+            moved = [
+                i
+                for i, (a, b) in enumerate(zip(zip(x, y, strict=True), shown, strict=True))
+                if not (
+                    math.isclose(a[0], b[0], rel_tol=1e-12, abs_tol=1e-12)
+                    and math.isclose(a[1], b[1], rel_tol=1e-12)
+                )
+            ]
             if len(moved) == 1:
                 i = moved[0]
                 Ts, ps = self._point_text(x[i], y[i])
@@ -348,19 +418,26 @@ class RoutePlanner(W.VBox):
         T, p = pts[i]
         phase = ""
         if self.report is not None:
-            st = self.report.legs[0].start if i == 0 else self.report.legs[min(i, len(self.report.legs)) - 1].end
+            st = (
+                self.report.legs[0].start
+                if i == 0
+                else self.report.legs[min(i, len(self.report.legs)) - 1].end
+            )
             phase = f"<br>{st.phase}"
         self.diagram.corners.tooltip.value = (
             f"<div class='pp-tip'><b>corner {'S' if i == 0 else i}</b><br>"
-            f"{self.diagram.fmt_T(T)}<br>{self.diagram.fmt_p(p)}{phase}</div>")
+            f"{self.diagram.fmt_T(T)}<br>{self.diagram.fmt_p(p)}{phase}</div>"
+        )
 
     def _hover_crossing(self, _mark: Any, event: dict[str, Any]) -> None:
         i = _event_index(event)
         if self.report is None or i is None or i >= len(self.report.crossings):
             return
         self.diagram.crossings.tooltip.value = (
-            "<div class='pp-tip'>" + crossing_tip(self.report.crossings[i], self.T_unit,
-                                                  self.p_unit, self.energy_unit) + "</div>")
+            "<div class='pp-tip'>"
+            + crossing_tip(self.report.crossings[i], self.T_unit, self.p_unit, self.energy_unit)
+            + "</div>"
+        )
 
     def _edit_corner(self, index: int, coord: str, typed: str) -> str:
         try:
@@ -398,8 +475,13 @@ class RoutePlanner(W.VBox):
             kind = self._auto_kind(T_text, p_text)
         return self._commit(_spec.add_corner(self._spec, T_text, p_text, kind))
 
-    def _move(self, index: int, T_text: str | None = None, p_text: str | None = None,
-              keep_fields: bool = False) -> str:
+    def _move(
+        self,
+        index: int,
+        T_text: str | None = None,
+        p_text: str | None = None,
+        keep_fields: bool = False,
+    ) -> str:
         try:
             spec = _spec.move_corner(self._spec, index, T_text, p_text)
         except (IndexError, PhasePathError) as exc:
@@ -419,8 +501,9 @@ class RoutePlanner(W.VBox):
         dy = abs(math.log10(max(p1, 1e-300) / p0)) / max(math.log10(win[3] / win[2]), 1e-12)
         return "isotherm" if dy > dx else "isobar"
 
-    def _commit(self, spec: _spec.Spec, *, force: bool = False, fit: bool = False,
-                keep_fields: bool = False) -> str:
+    def _commit(
+        self, spec: _spec.Spec, *, force: bool = False, fit: bool = False, keep_fields: bool = False
+    ) -> str:
         """Take an edit if it gives a valid, analysable route (or ``force``); else keep the last
         good route. Returns the error message ("" when the edit was taken and is valid)."""
         result = _evaluate(spec)
@@ -442,8 +525,12 @@ class RoutePlanner(W.VBox):
         self._commit(spec, force=True, fit=True)
 
     # -- state -> view -------------------------------------------------------------------------
-    def _apply(self, spec: _spec.Spec, fit: bool = False,
-               result: tuple[Route | None, Report | None, str] | None = None) -> None:
+    def _apply(
+        self,
+        spec: _spec.Spec,
+        fit: bool = False,
+        result: tuple[Route | None, Report | None, str] | None = None,
+    ) -> None:
         """Make ``spec`` the drawing: build and analyse the route, then redraw once."""
         if spec["substance"] != self.substance:
             sub = _substance(spec["substance"])
@@ -469,8 +556,9 @@ class RoutePlanner(W.VBox):
             kinds = ["start"] + [leg["kind"] for leg in self._spec["legs"]]
             self.legs.show(pts, kinds[: len(pts)], self.T_unit, self.p_unit)
             self.start_box.layout.display = "none" if pts else None
-            self.results.value = results_html(self.report, self.T_unit, self.p_unit,
-                                              self.energy_unit)
+            self.results.value = results_html(
+                self.report, self.T_unit, self.p_unit, self.energy_unit
+            )
             self.downloads.value = self._download_links()
             self.cautions.value = cautions_html(_substance(self.substance), pts, self.report)
             self.undo_btn.disabled = not self._undo
@@ -486,7 +574,7 @@ class RoutePlanner(W.VBox):
     def _draw_route(self, pts: list[tuple[float, float]]) -> None:
         with self._quiet():
             self.diagram.set_route(pts, valid=self._valid)
-            self._shown = list(zip(self.diagram.corners.x, self.diagram.corners.y))
+            self._shown = list(zip(self.diagram.corners.x, self.diagram.corners.y, strict=True))
         cross = [(c.T, c.p) for c in self.report.crossings] if self.report else []
         self.diagram.set_crossings(cross)
 
@@ -496,8 +584,10 @@ class RoutePlanner(W.VBox):
             self.status.value = f"<div class='pp-status pp-bad'>⚠ {_esc(msg)}</div>"
         elif self.report is not None:
             n = len(self.report.crossings)
-            self.status.value = (f"<div class='pp-status pp-ok'>{self.substance}: "
-                                 f"{len(self.report.legs)} leg(s), {n} crossing(s).</div>")
+            self.status.value = (
+                f"<div class='pp-status pp-ok'>{self.substance}: "
+                f"{len(self.report.legs)} leg(s), {n} crossing(s).</div>"
+            )
         else:
             self.status.value = ""
         return msg
@@ -548,8 +638,10 @@ class RoutePlanner(W.VBox):
         parts = []
         for name, mime, data in links:
             b64 = base64.b64encode(data.encode("utf-8")).decode("ascii")
-            parts.append(f"<a download='{name}' href='data:{mime};base64,{b64}' "
-                         f"style='margin-right:12px'>⬇ {name}</a>")
+            parts.append(
+                f"<a download='{name}' href='data:{mime};base64,{b64}' "
+                f"style='margin-right:12px'>⬇ {name}</a>"
+            )
         return "".join(parts)
 
     @contextlib.contextmanager
@@ -564,8 +656,16 @@ class RoutePlanner(W.VBox):
     def _batch(self) -> Iterator[None]:
         """Hold every touched widget's messages until the end: the page redraws once."""
         with contextlib.ExitStack() as stack:
-            for w in [*self.diagram.widgets(), self.legs, self.results, self.status,
-                      self.downloads, self.cautions, self.start_box, self.picker]:
+            for w in [
+                *self.diagram.widgets(),
+                self.legs,
+                self.results,
+                self.status,
+                self.downloads,
+                self.cautions,
+                self.start_box,
+                self.picker,
+            ]:
                 stack.enter_context(w.hold_sync())
             yield
 
@@ -579,8 +679,14 @@ def _evaluate(spec: _spec.Spec) -> tuple[Route | None, Report | None, str]:
     except PhasePathError as exc:
         return None, None, str(exc)
     except Exception as exc:  # a defect in phasepath: say so instead of a traceback
-        return None, None, (f"phasepath could not analyse this route ({type(exc).__name__}: "
-                            f"{exc}); the drawing is kept. Please report this route.")
+        return (
+            None,
+            None,
+            (
+                f"phasepath could not analyse this route ({type(exc).__name__}: "
+                f"{exc}); the drawing is kept. Please report this route."
+            ),
+        )
 
 
 def _event_index(event: dict[str, Any]) -> int | None:
@@ -598,21 +704,30 @@ def _esc(text: str) -> str:
 def _legend_html() -> str:
     def line(kind: str) -> str:
         st = STYLE[kind]
-        dash = {"solid": "", "dashed": "stroke-dasharray='7 4'",
-                "dash_dotted": "stroke-dasharray='7 3 2 3'"}[st["dash"]]
-        return (f"<span class='pp-key'><svg width='30' height='10'><line x1='0' y1='5' x2='30' "
-                f"y2='5' stroke='{st['color']}' stroke-width='2.5' {dash}/></svg> "
-                f"{st['label']}</span>")
+        dash = {
+            "solid": "",
+            "dashed": "stroke-dasharray='7 4'",
+            "dash_dotted": "stroke-dasharray='7 3 2 3'",
+        }[st["dash"]]
+        return (
+            f"<span class='pp-key'><svg width='30' height='10'><line x1='0' y1='5' x2='30' "
+            f"y2='5' stroke='{st['color']}' stroke-width='2.5' {dash}/></svg> "
+            f"{st['label']}</span>"
+        )
 
-    return ("<div class='pp-legend'>" + line("vaporization") + line("melting")
-            + line("sublimation")
-            + "<span class='pp-key'><svg width='12' height='12'><polygon points='6,1 11,11 1,11' "
-              "fill='#1d1d1f'/></svg> triple point</span>"
-            + "<span class='pp-key'><svg width='12' height='12'><rect x='1.5' y='1.5' width='9' "
-              "height='9' fill='#fff' stroke='#1d1d1f' stroke-width='2'/></svg> critical point"
-              "</span>"
-            + "<span class='pp-key'><svg width='30' height='12'><line x1='0' y1='6' x2='30' y2='6' "
-              "stroke='#1d1d1f' stroke-width='3'/><circle cx='15' cy='6' r='4' fill='#fff' "
-              "stroke='#1d1d1f' stroke-width='2'/></svg> route (drag a corner)</span>"
-            + "<span class='pp-key'><svg width='14' height='14'><polygon points='7,1 13,7 7,13 1,7'"
-              " fill='#f2b01e' stroke='#1d1d1f' stroke-width='1.2'/></svg> crossing</span></div>")
+    return (
+        "<div class='pp-legend'>"
+        + line("vaporization")
+        + line("melting")
+        + line("sublimation")
+        + "<span class='pp-key'><svg width='12' height='12'><polygon points='6,1 11,11 1,11' "
+        "fill='#1d1d1f'/></svg> triple point</span>"
+        + "<span class='pp-key'><svg width='12' height='12'><rect x='1.5' y='1.5' width='9' "
+        "height='9' fill='#fff' stroke='#1d1d1f' stroke-width='2'/></svg> critical point"
+        "</span>"
+        + "<span class='pp-key'><svg width='30' height='12'><line x1='0' y1='6' x2='30' y2='6' "
+        "stroke='#1d1d1f' stroke-width='3'/><circle cx='15' cy='6' r='4' fill='#fff' "
+        "stroke='#1d1d1f' stroke-width='2'/></svg> route (drag a corner)</span>"
+        + "<span class='pp-key'><svg width='14' height='14'><polygon points='7,1 13,7 7,13 1,7'"
+        " fill='#f2b01e' stroke='#1d1d1f' stroke-width='1.2'/></svg> crossing</span></div>"
+    )

@@ -23,9 +23,16 @@ import pytest
 REPO = Path(__file__).resolve().parents[2]
 ARTIFACTS = REPO / "test-artifacts"
 
-CHROMIUM_ARGS = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
-                 "--disable-background-networking", "--disable-component-update",
-                 "--disable-sync"]
+CHROMIUM_ARGS = [
+    "--headless",
+    "--no-sandbox",
+    "--disable-gpu",
+    "--disable-quic",
+    "--no-first-run",
+    "--disable-background-networking",
+    "--disable-component-update",
+    "--disable-sync",
+]
 
 
 def _free_port() -> int:
@@ -37,11 +44,22 @@ def _free_port() -> int:
 def notebook(cells: list[str]) -> dict:
     """A minimal notebook of code cells (nbformat 4) for the server to run."""
     return {
-        "cells": [{"cell_type": "code", "execution_count": None, "id": f"c{i}", "metadata": {},
-                   "outputs": [], "source": src} for i, src in enumerate(cells)],
-        "metadata": {"kernelspec": {"display_name": "Python 3", "language": "python",
-                                    "name": "python3"}},
-        "nbformat": 4, "nbformat_minor": 5,
+        "cells": [
+            {
+                "cell_type": "code",
+                "execution_count": None,
+                "id": f"c{i}",
+                "metadata": {},
+                "outputs": [],
+                "source": src,
+            }
+            for i, src in enumerate(cells)
+        ],
+        "metadata": {
+            "kernelspec": {"display_name": "Python 3", "language": "python", "name": "python3"}
+        },
+        "nbformat": 4,
+        "nbformat_minor": 5,
     }
 
 
@@ -56,8 +74,10 @@ def artifacts() -> Path:
 def chromium_path() -> str:
     path = shutil.which("chromium")
     if path is None:
-        pytest.skip("Debian's chromium is not installed (apt-get install -y chromium); "
-                    "scripts/setup.sh installs it in CI")
+        pytest.skip(
+            "Debian's chromium is not installed (apt-get install -y chromium); "
+            "scripts/setup.sh installs it in CI"
+        )
     pytest.importorskip("playwright.sync_api", reason="Python Playwright is not installed")
     return path
 
@@ -68,24 +88,47 @@ def voila_url(tmp_path_factory: pytest.TempPathFactory, chromium_path: str):
     psutil = pytest.importorskip("psutil")
     home = tmp_path_factory.mktemp("voila")
     nb = home / "planner_test.ipynb"
-    nb.write_text(json.dumps(notebook([
-        "import phasepath as pp\n"
-        "planner = pp.widgets.RoutePlanner('CO2', T_unit='degC', p_unit='bar')\n"
-        "planner",
-    ])))
+    nb.write_text(
+        json.dumps(
+            notebook(
+                [
+                    "import phasepath as pp\n"
+                    "planner = pp.widgets.RoutePlanner('CO2', T_unit='degC', p_unit='bar')\n"
+                    "planner",
+                ]
+            )
+        )
+    )
     env = dict(os.environ)
-    for var, sub in (("JUPYTER_CONFIG_DIR", "config"), ("JUPYTER_RUNTIME_DIR", "runtime"),
-                     ("JUPYTER_DATA_DIR", "data"), ("JUPYTERLAB_SETTINGS_DIR", "settings"),
-                     ("JUPYTERLAB_WORKSPACES_DIR", "workspaces"), ("IPYTHONDIR", "ipython")):
+    for var, sub in (
+        ("JUPYTER_CONFIG_DIR", "config"),
+        ("JUPYTER_RUNTIME_DIR", "runtime"),
+        ("JUPYTER_DATA_DIR", "data"),
+        ("JUPYTERLAB_SETTINGS_DIR", "settings"),
+        ("JUPYTERLAB_WORKSPACES_DIR", "workspaces"),
+        ("IPYTHONDIR", "ipython"),
+    ):
         (home / sub).mkdir()
         env[var] = str(home / sub)
     env["PYTHONPATH"] = os.pathsep.join([str(REPO), env.get("PYTHONPATH", "")]).rstrip(os.pathsep)
     port = _free_port()
     log = open(home / "voila.log", "w")  # noqa: SIM115 - closed at teardown
     proc = subprocess.Popen(
-        [sys.executable, "-m", "voila", "--no-browser", f"--port={port}",
-         "--Voila.ip=127.0.0.1", "--Voila.port_retries=0", str(nb)],
-        cwd=home, env=env, stdout=log, stderr=subprocess.STDOUT)
+        [
+            sys.executable,
+            "-m",
+            "voila",
+            "--no-browser",
+            f"--port={port}",
+            "--Voila.ip=127.0.0.1",
+            "--Voila.port_retries=0",
+            str(nb),
+        ],
+        cwd=home,
+        env=env,
+        stdout=log,
+        stderr=subprocess.STDOUT,
+    )
     base = f"http://127.0.0.1:{port}"
     deadline = time.monotonic() + 90
     while True:

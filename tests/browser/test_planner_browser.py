@@ -62,7 +62,8 @@ def _fit(points: list[tuple[float, float]]) -> tuple[float, float]:
 def _rows(page) -> list[list[str]]:
     return page.eval_on_selector_all(
         "table.pp-crossings tr.pp-crossing",
-        "rows => rows.map(r => Array.from(r.querySelectorAll('td')).map(td => td.textContent))")
+        "rows => rows.map(r => Array.from(r.querySelectorAll('td')).map(td => td.textContent))",
+    )
 
 
 def test_click_two_legs_shows_crossings(page, voila_url, artifacts):
@@ -72,7 +73,8 @@ def test_click_two_legs_shows_crossings(page, voila_url, artifacts):
     page.wait_for_selector(".pp-diagram path.line", state="attached", timeout=30_000)
     page.wait_for_function(
         "() => document.querySelectorAll('.pp-diagram g.axis g.tick text').length > 6",
-        timeout=30_000)
+        timeout=30_000,
+    )
     page.wait_for_timeout(300)  # let the last layout pass settle
     cal = page.evaluate(_CALIBRATE)
     ax, bx = _fit([(t["px"], _number(t["text"])) for t in cal["x"]])
@@ -96,15 +98,18 @@ def test_click_two_legs_shows_crossings(page, voila_url, artifacts):
         assert area["top"] < y < area["top"] + area["height"]
 
     page.mouse.click(x0, y0)
-    page.wait_for_function("() => document.querySelectorAll('.pp-legs input').length >= 2",
-                           timeout=30_000)
+    page.wait_for_function(
+        "() => document.querySelectorAll('.pp-legs input').length >= 2", timeout=30_000
+    )
     page.mouse.click(x0, y1)
-    page.wait_for_function("() => document.querySelectorAll('tr.pp-crossing').length >= 1",
-                           timeout=30_000)
+    page.wait_for_function(
+        "() => document.querySelectorAll('tr.pp-crossing').length >= 1", timeout=30_000
+    )
     t_click = time.perf_counter()
     page.mouse.click(x2, y1)
-    page.wait_for_function("() => document.querySelectorAll('tr.pp-crossing').length >= 2",
-                           timeout=30_000)
+    page.wait_for_function(
+        "() => document.querySelectorAll('tr.pp-crossing').length >= 2", timeout=30_000
+    )
     click_to_table = time.perf_counter() - t_click
     page.wait_for_timeout(250)
     page.screenshot(path=str(artifacts / "planner-co2-two-legs.png"), full_page=True)
