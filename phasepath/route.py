@@ -300,11 +300,15 @@ class Route:
             f"p={self.start.p:.6g} Pa, {len(self.legs)} legs>"
         )
 
-    def analyze(self) -> Report:
-        """Analyse every leg: the crossings, the states and the heat and work per kg."""
+    def analyze(self, basis: str = "steady-flow") -> Report:
+        """Analyse every leg: the crossings, the states and the heat and work per kg.
+
+        ``basis`` for heat and work: "steady-flow" (per kg through a device) or "closed"
+        (per kg in a closed vessel).
+        """
         from .analysis import analyze
 
-        return analyze(self)
+        return analyze(self, basis)
 
     # -- deriving ------------------------------------------------------------------------------
     def copy(self) -> Route:
