@@ -164,6 +164,8 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
         end = leg.state if (leg.state is not None and state_key(leg.state) == end_key) else (
             _single(sub, walk.path[-1], end_key))
         heat, work, note = leg_heat_work(leg.kind, start, end, basis)
+        if leg.kind == "isenthalp" and end.p > start.p:
+            note += "; pressure rises at constant enthalpy: no valve does this"
         hazards = leg_hazards(sub, leg.kind, list(walk.path), found, leg.event)
         legs.append(LegSummary(step, leg.kind, start, end, heat, work, note, basis,
                                tuple(walk.path), hazards, leg.event))

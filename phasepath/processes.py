@@ -283,7 +283,8 @@ def describe_change(before: str, after: str) -> str:
         ("liquid+vapor", "vapor"): "dew point: the last liquid has vaporized",
         ("vapor", "liquid+vapor"): "dew point: liquid starts to form",
         ("liquid+vapor", "liquid"): "bubble point: no vapor left (liquid-full)",
-        ("liquid+vapor", "solid+vapor"): "triple point: the liquid turns to solid and vapor",
+        ("liquid+vapor", "solid+vapor"): ("triple point: the liquid turns to solid and vapor "
+                                           "(latent heat shown: fusion)"),
         ("solid+vapor", "liquid+vapor"): "triple point: the solid melts",
         ("vapor", "solid+vapor"): "solid starts to deposit from the vapor",
         ("solid+vapor", "vapor"): "the last solid has sublimed",
