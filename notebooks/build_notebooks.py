@@ -235,10 +235,11 @@ lowest temperature at which 700 MPa stays liquid, follow from the melting curve 
     ("code", """\
 water = pp.substance("water")
 ice6 = next(b for b in water.boundaries if b.label == "melting (ice VI)")
-print(f"ice VI branch: {ice6.T_min - 273.15:.2f} degC to {ice6.T_max - 273.15:.2f} degC ({ice6.source})")
+lo, hi = ice6.T_min - 273.15, ice6.T_max - 273.15
+print(f"ice VI branch: {lo:.2f} degC to {hi:.2f} degC ({ice6.source})")
 print(f"ice VI melting pressure at 5 degC: {ice6.p_of_T(278.15) / 1e6:.1f} MPa")
-warm = [c for c in ice6.temperatures_at(700e6)]
-print(f"700 MPa stays liquid above {warm[0][0] - 273.15:.2f} degC")"""),
+T_700, _, _ = ice6.temperatures_at(700e6)[0]
+print(f"700 MPa stays liquid above {T_700 - 273.15:.2f} degC")"""),
     ("md", "## 2. Pressure-assisted thaw at −20 °C: ice III re-entrance"),
     ("code", """\
 probe = pp.Route("water", T="-20 degC", p="1 bar", title="Isotherm at -20 degC to 300 MPa")
@@ -307,8 +308,8 @@ for bath in ("1 atm", "2 bar", "2.5 bar", "3 bar"):
     print(f"nitrogen bath at {bath:>7}: boils at {boil.T - 273.15:8.3f} degC")"""),
     ("md", """\
 A bath held at 2.5 bar boils at about −187.2 °C: above argon's freezing point at 1.2 bar
-(−189.3 °C), and below its condensation point (−184.2 °C). The fill plan condenses and subcools the argon only to the
-bath temperature:"""),
+(−189.3 °C), and below its condensation point (−184.2 °C). The fill plan condenses and
+subcools the argon only to the bath temperature:"""),
     ("code", """\
 fill = (
     pp.Route("argon", T="20 degC", p="1.2 bar", title="DW-180 fill: bath at 2.5 bar")

@@ -25,7 +25,7 @@ from typing import Any
 
 from .errors import PhasePathError, UnitError
 from .io import MAX_BYTES, dumps_route, load_route
-from .report import UNIT_LABELS, Crossing, Report
+from .report import UNIT_LABELS, Report
 from .units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, convert
 
 __all__ = ["main", "format_report", "report_cautions", "results_document", "compare_crossings",
@@ -221,7 +221,8 @@ def _phase(phase: str, form: str | None) -> str:
     return f"{phase} (ice {form})" if form else phase
 
 
-def _rows_crossings(report: Report, T_u: str, p_u: str, e_u: str) -> tuple[list[str], list[list[Any]]]:
+def _rows_crossings(report: Report, T_u: str, p_u: str,
+                    e_u: str) -> tuple[list[str], list[list[Any]]]:
     head = ["leg", "kind", "from", "to", f"T [{T_u}]", f"p [{p_u}]", f"latent heat [{e_u}]",
             "boundary", "hazards"]
     rows = []
@@ -235,7 +236,8 @@ def _rows_crossings(report: Report, T_u: str, p_u: str, e_u: str) -> tuple[list[
     return head, rows
 
 
-def _rows_legs(report: Report, T_u: str, p_u: str, e_u: str) -> tuple[list[str], list[list[Any]]]:
+def _rows_legs(report: Report, T_u: str, p_u: str,
+               e_u: str) -> tuple[list[str], list[list[Any]]]:
     head = ["leg", "kind", f"T start [{T_u}]", f"p start [{p_u}]", f"T end [{T_u}]",
             f"p end [{p_u}]", "phase start", "phase end", f"heat [{e_u}]", f"work [{e_u}]",
             "note", "hazards"]
@@ -263,7 +265,8 @@ def _text_table(head: list[str], rows: list[list[Any]]) -> str:
     widths = [max([len(h)] + [len(r[i]) for r in cells]) for i, h in enumerate(head)]
 
     def line(values: list[str]) -> str:
-        out = [v.rjust(w) if num else v.ljust(w) for v, w, num in zip(values, widths, numeric)]
+        out = [v.rjust(w) if num else v.ljust(w)
+               for v, w, num in zip(values, widths, numeric, strict=True)]
         return "  ".join(out).rstrip()
 
     return "\n".join([line(head), line(["-" * w for w in widths])] + [line(r) for r in cells])
@@ -388,7 +391,7 @@ def compare_crossings(expected: list[dict[str, Any]], actual: list[dict[str, Any
     groups: dict[tuple[Any, ...], list[dict[str, Any]]] = {}
     for c in actual:
         groups.setdefault(_key(c), []).append(c)
-    out = []
+    out: list[dict[str, Any]] = []
     used: set[int] = set()
     for e in expected:
         pool = groups.get(_key(e), [])
@@ -552,7 +555,7 @@ def _diagram(args: argparse.Namespace) -> int:
             for i in range(len(cs) - 1):
                 ax.annotate("", xy=(xs[i + 1], ys[i + 1]), xytext=(xs[i], ys[i]),
                             arrowprops={"arrowstyle": "-|>", "color": "#111111", "lw": 1.2})
-            for i, (x, y) in enumerate(zip(xs, ys)):
+            for i, (x, y) in enumerate(zip(xs, ys, strict=True)):
                 ax.annotate(str(i), (x, y), textcoords="offset points", xytext=(5, 5),
                             fontsize=8)
             if report is not None and report.crossings:

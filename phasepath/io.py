@@ -157,7 +157,8 @@ def save_route(route: Route, path: Path_, fmt: str | None = None) -> Path:
     try:
         p.write_text(text, encoding="utf-8")
     except OSError as exc:
-        raise RouteFileError(f"{str(path)}: cannot write route file: {exc.strerror or exc}") from None
+        raise RouteFileError(
+            f"{str(path)}: cannot write route file: {exc.strerror or exc}") from None
     return p
 
 

@@ -3,9 +3,13 @@
 A *spec* has the shape of :meth:`phasepath.Route.to_dict` (substance, title, notes, start, legs),
 except that ``start`` may be None before the first corner is placed. Every value is kept as the
 user gave it (``"25 degC"``, ``"60 bar"`` or an SI number), so switching substance or saving the
-route keeps the user's own numbers. Each leg keeps only its target (an isobar its temperature, an
-isotherm its pressure); a corner's other coordinate comes from the legs before it, so every edit
-here keeps every leg a true isobar or isotherm. This module imports no widget library.
+route keeps the user's own numbers. Each leg keeps only its target: an isobar its temperature, an
+isotherm its pressure, a constant-volume leg its end temperature (or end pressure), a
+constant-enthalpy or constant-entropy leg its end pressure, an event-ended leg its event
+(``{"kind": "isobar", "until": "fully vapor"}``). The start holds T and p, or T and a density.
+A corner's other coordinate comes from the legs before it (or from the equation of state, at the
+end of a curved or event-ended leg), so every edit here keeps every leg true to its kind. This
+module imports no widget library.
 """
 
 from __future__ import annotations
@@ -20,14 +24,18 @@ from ..units import convert, parse_pressure, parse_temperature
 
 Spec = dict[str, Any]
 
-#: The coordinate each leg kind moves along (the other one it holds fixed).
-MOVES = {"isobar": "T", "isotherm": "p"}
-#: Legs drawn by the planner hold T or p fixed; other kinds (isochore, isenthalp, isentrope) move
-#: along p and their end temperature comes from the core.
+#: The coordinate a click sets for each leg kind: an isobar moves in T (it holds p), an isotherm
+#: in p; a constant-volume leg goes to the clicked temperature, a constant-enthalpy or
+#: constant-entropy leg to the clicked pressure (the other coordinate comes from the EOS).
+MOVES = {"isobar": "T", "isotherm": "p", "isochore": "T", "isenthalp": "p", "isentrope": "p"}
+#: Every leg kind the planner draws, in the order its controls offer them.
+KINDS = tuple(MOVES)
+#: Legs that hold T or p fixed (drawn straight); the others are curves found from the EOS.
 _STRAIGHT = ("isobar", "isotherm")
+_HELD = {"isobar": "p", "isotherm": "T"}
 
 
-def empty(substance: str) -> Spec:
+def empty(substance: Any) -> Spec:
     return {"substance": substance, "title": "", "notes": "", "start": None, "legs": []}
 
 
@@ -45,29 +53,46 @@ def build(spec: Spec) -> Route | None:
     return Route.from_dict(spec)
 
 
-def corners(spec: Spec) -> list[tuple[float, float]]:
-    """(T [K], p [Pa]) of every corner: from the core's route where the drawing is valid, else
-    read from the given values (a leg whose end cannot be read is left out)."""
+def target(leg: dict[str, Any]) -> str:
+    """The key of a leg's target: "T", "p" or "until"."""
+    for key in ("until", "T", "p"):
+        if key in leg:
+            return key
+    return MOVES[leg["kind"]]
+
+
+def is_event(leg: dict[str, Any]) -> bool:
+    return "until" in leg
+
+
+def corners(spec: Spec, route: Route | None = None) -> list[tuple[float, float]]:
+    """(T [K], p [Pa]) of every corner: from the core's route where the drawing is valid (pass
+    it as ``route`` if already built), else read from the given values (the sketch stops before
+    the first leg whose end needs the equation of state)."""
     if spec["start"] is None:
         return []
-    try:
-        route = build(spec)
-    except PhasePathError:
-        route = None
+    if route is None:
+        try:
+            route = build(spec)
+        except PhasePathError:
+            route = None
     if route is not None:
         return route.corners()
-    T = parse_temperature(spec["start"]["T"])
-    p = parse_pressure(spec["start"]["p"])
+    start = spec["start"]
+    T = parse_temperature(start["T"])
+    if "p" not in start:
+        return []  # a start given by density needs the EOS
+    p = parse_pressure(start["p"])
     out = [(T, p)]
     for leg in spec["legs"]:
+        if leg["kind"] not in _STRAIGHT or is_event(leg):
+            break  # a curved or event-ended leg's end needs the core; stop the sketch here
         try:
             if leg["kind"] == "isobar":
                 T = parse_temperature(leg["T"])
-            elif leg["kind"] == "isotherm":
-                p = parse_pressure(leg["p"])
             else:
-                break  # a curved leg's end needs the core; stop the sketch here
-        except PhasePathError:
+                p = parse_pressure(leg["p"])
+        except (PhasePathError, KeyError):
             break
         out.append((T, p))
     return out
@@ -84,15 +109,36 @@ def text(value: float, dimension: str, unit: str) -> str:
     return f"{round(x, digits):.{max(digits, 0)}f} {unit}"
 
 
-def add_corner(spec: Spec, T_text: str, p_text: str, kind: str) -> Spec:
+def add_corner(
+    spec: Spec, T_text: str, p_text: str, kind: str, until: str | None = None
+) -> Spec:
     """A new last corner: the start if there is none, else a leg of ``kind`` whose target is the
-    matching coordinate of the point (the other coordinate snaps to the last corner)."""
+    coordinate of the point that kind moves along (:data:`MOVES`); with ``until`` (an isobar or
+    isotherm only) the leg ends on that event instead and the point is not used."""
     new = copy.deepcopy(spec)
     if new["start"] is None:
         new["start"] = {"T": T_text, "p": p_text}
+    elif until:
+        if kind not in _STRAIGHT:
+            raise RouteError(
+                f"an event ({until!r}) can end a constant-pressure or constant-temperature leg "
+                f"only, not a {kind} leg"
+            )
+        new["legs"].append({"kind": kind, "until": until})
     else:
         coord = MOVES[kind]
         new["legs"].append({"kind": kind, coord: T_text if coord == "T" else p_text})
+    return new
+
+
+def add_leg(spec: Spec, kind: str, **leg_target: Any) -> Spec:
+    """A new last leg with the target as typed (``T=``, ``p=`` or ``until=``)."""
+    if spec["start"] is None:
+        raise RouteError("place the start first")
+    if kind not in MOVES:
+        raise RouteError(f"unknown leg kind {kind!r}; known: {', '.join(KINDS)}")
+    new = copy.deepcopy(spec)
+    new["legs"].append({"kind": kind, **leg_target})
     return new
 
 
@@ -101,10 +147,14 @@ def move_corner(
 ) -> Spec:
     """Move corner ``index`` (0 = start) to the given T and/or p, keeping every leg true.
 
-    The corner's leg takes the new value of the coordinate it moves along as its target. The
-    coordinate the leg holds fixed belongs to an earlier target (the last earlier leg of the other
-    kind, or the start): that one changes, so the run of same-kind legs before the corner shifts
-    with it, and the legs after the corner follow through their own targets.
+    The corner's own leg takes the value of the coordinate it moves along as its new target
+    (a constant-volume leg keeps the kind of target it has, T or p; a typed value of the other
+    kind switches it). A drag gives both coordinates: a curved or event-ended leg then takes only
+    its own coordinate, and its end lands where the equation of state puts it. The coordinate a
+    straight leg holds fixed belongs to an earlier target (the last earlier leg that moves along
+    it, or the start): that one changes, so the run of legs holding it shifts with it, and the
+    legs after the corner follow through their own targets. A single typed value that no leg can
+    take (the temperature at the end of a constant-enthalpy leg) is refused with the reason.
     """
     new = copy.deepcopy(spec)
     if new["start"] is None:
@@ -112,27 +162,83 @@ def move_corner(
     legs = new["legs"]
     if not 0 <= index <= len(legs):
         raise IndexError(f"corner {index} does not exist (0 to {len(legs)})")
-    for coord, value in (("T", T_text), ("p", p_text)):
-        if value is None:
-            continue
-        j = index
-        while j > 0 and legs[j - 1]["kind"] in _STRAIGHT and MOVES[legs[j - 1]["kind"]] != coord:
-            j -= 1
-        if j == 0:
-            new["start"][coord] = value
-        elif legs[j - 1]["kind"] in _STRAIGHT or coord == "p":
-            legs[j - 1][coord] = value
-        else:
-            raise RouteError(
-                f"the temperature of corner {index} follows from the "
-                f"{legs[j - 1]['kind']} leg {j}: change that leg's pressure instead"
-            )
+    drag = T_text is not None and p_text is not None
+    values = {"T": T_text, "p": p_text}
+    if index == 0:
+        for coord, value in values.items():
+            if value is not None:
+                _set_start(new, coord, value)
+        return new
+    own = legs[index - 1]
+    kind = own["kind"]
+    if kind in _STRAIGHT:
+        mine, held = MOVES[kind], _HELD[kind]
+        if values[mine] is not None and not (drag and is_event(own)):
+            own.pop("until", None)
+            own[mine] = values[mine]
+        if values[held] is not None:
+            try:
+                _set_held(new, index - 1, held, values[held], index)
+            except RouteError:
+                if not drag:
+                    raise
+                # a drag: the held coordinate follows from an event or the EOS; the corner
+                # slides along its own leg only
+        return new
+    if kind == "isochore":
+        key = target(own) if drag else ("T" if T_text is not None else "p")
+        own.pop("T", None)
+        own.pop("p", None)
+        own[key] = values[key]
+        return new
+    # constant enthalpy or entropy: only the end pressure is the user's
+    if p_text is None:
+        raise RouteError(
+            f"the temperature of corner {index} follows from its {kind} leg (the equation of "
+            f"state puts it there): change that leg's pressure instead"
+        )
+    own["p"] = p_text
     return new
 
 
+def _set_start(spec: Spec, coord: str, value: str) -> None:
+    start = spec["start"]
+    if coord == "p":
+        start.pop("density", None)
+    start[coord] = value
+
+
+def _set_held(spec: Spec, j: int, coord: str, value: str, index: int) -> None:
+    """Set the held coordinate ``coord`` of the straight leg ``j``: on the last earlier leg that
+    moves along it, or on the start (legs ``<= j`` holding it shift with it)."""
+    legs = spec["legs"]
+    while j > 0 and legs[j - 1]["kind"] in _STRAIGHT and _HELD[legs[j - 1]["kind"]] == coord:
+        j -= 1
+    if j == 0:
+        _set_start(spec, coord, value)
+        return
+    leg = legs[j - 1]
+    if is_event(leg):
+        raise RouteError(
+            f"the {'temperature' if coord == 'T' else 'pressure'} of corner {index} follows "
+            f"from the event of leg {j} ({leg['until']!r}): change that leg instead"
+        )
+    if leg["kind"] in _STRAIGHT or leg["kind"] == "isochore" or coord == "p":
+        if leg["kind"] == "isochore":
+            leg.pop("T", None)
+            leg.pop("p", None)
+        leg[coord] = value
+        return
+    raise RouteError(
+        f"the temperature of corner {index} follows from the {leg['kind']} leg {j}: change "
+        f"that leg's pressure instead"
+    )
+
+
 def delete_corner(spec: Spec, index: int) -> Spec:
-    """Remove corner ``index``. Deleting the start makes the next corner the start; deleting a
-    later corner removes the leg that ends there (the next leg keeps its own target)."""
+    """Remove corner ``index``. Deleting the start makes the next corner the start (by its
+    density where it is a two-phase mixture); deleting a later corner removes the leg that ends
+    there (the next leg keeps its own target)."""
     new = copy.deepcopy(spec)
     if new["start"] is None:
         raise IndexError("the route has no corners yet")
@@ -144,28 +250,62 @@ def delete_corner(spec: Spec, index: int) -> Spec:
             new["start"] = None
             return new
         first = legs.pop(0)
-        start = dict(new["start"])
-        if first["kind"] in _STRAIGHT:
+        if first["kind"] in _STRAIGHT and not is_event(first) and "p" in new["start"]:
+            start = dict(new["start"])
             start[MOVES[first["kind"]]] = first[MOVES[first["kind"]]]
         else:
-            T1, p1 = corners(spec)[1]
-            start = {"T": T1, "p": p1}
+            start = _state_start(spec)
         new["start"] = start
         return new
     legs.pop(index - 1)
     return _drop_zero_legs(new)
 
 
+def _state_start(spec: Spec) -> dict[str, Any]:
+    """The end of the first leg as a start: T and p, or T and density for a mixture."""
+    try:
+        route = build({**spec, "legs": spec["legs"][:1]})
+    except PhasePathError:
+        route = None
+    if route is None or not route.legs:
+        T1, p1 = corners(spec)[1]
+        return {"T": T1, "p": p1}
+    leg = route.legs[0]
+    state = leg.state
+    if state is not None and "+" in state.phase and state.rho is not None:
+        return {"T": leg.T, "density": state.rho}
+    return {"T": leg.T, "p": leg.p}
+
+
 def _drop_zero_legs(spec: Spec) -> Spec:
-    """Remove legs that end where they start (left behind by a deletion)."""
+    """Remove legs that end where they start (left behind by a deletion); legs past the end of
+    the sketch (after a curved leg) are kept as they are."""
     try:
         pts = corners(spec)
     except ValueError:
         return spec
     keep = []
-    for leg, a, b in zip(spec["legs"], pts[:-1], pts[1:], strict=False):
-        if math.isclose(a[0], b[0], rel_tol=1e-12) and math.isclose(a[1], b[1], rel_tol=1e-12):
-            continue
+    for k, leg in enumerate(spec["legs"]):
+        if k + 1 < len(pts):
+            (Ta, pa), (Tb, pb) = pts[k], pts[k + 1]
+            if math.isclose(Ta, Tb, rel_tol=1e-12) and math.isclose(pa, pb, rel_tol=1e-12):
+                continue
         keep.append(leg)
     spec["legs"] = keep
     return spec
+
+
+def copy_with_start(spec: Spec, **start: Any) -> Spec:
+    """The drawing with the start's T, p or density replaced (a density replaces p, and the
+    other way round); a start is created if there is none (it then needs T)."""
+    new = copy.deepcopy(spec)
+    old = dict(new["start"] or {})
+    if "density" in start:
+        old.pop("p", None)
+    if "p" in start:
+        old.pop("density", None)
+    old.update(start)
+    if "T" not in old:
+        raise RouteError("type the start temperature too")
+    new["start"] = old
+    return new

@@ -34,6 +34,9 @@ STYLE: dict[str, dict[str, Any]] = {
         "width": 2.5,
         "label": "sublimation",
     },
+    # a custom substance's curve beyond the range of its data (Boundary.T_valid): same colour,
+    # dotted and thinner, so an extrapolation never reads as data
+    "extrapolated": {"dash": "dotted", "width": 1.8, "label": "beyond the data"},
     "route": {"color": "#1d1d1f", "width": 3.0},
     "route_invalid": {"color": "#8a8a8a", "width": 2.0},
     "corner": {"fill": "#ffffff", "start": "#1d1d1f", "stroke": "#1d1d1f"},
@@ -201,67 +204,92 @@ class PhaseDiagram:
         self.css = W.HTML(_CSS, layout=W.Layout(height="0px", overflow="hidden"))
         self._pan = bq.interacts.PanZoom(scales={"x": [self.sx], "y": [self.sy]})
         self.substance: Substance | None = None
-        self._boundary_si: list[tuple[str, np.ndarray, np.ndarray]] = []
+        self._drawn: tuple[str, str] | None = None  # units the static parts were drawn in
+        self._curve_pool: list[bq.Lines] = []
+        #: (kind, beyond the data, T [K], p [Pa]) of each drawn piece of a boundary curve
+        self._boundary_si: list[tuple[str, bool, np.ndarray, np.ndarray]] = []
         self._special_si: list[tuple[str, float, float]] = []
         self._region_si: list[tuple[str, float, float]] = []
 
     # -- substance ---------------------------------------------------------------------------
     def set_substance(self, sub: Substance) -> None:
-        """Draw the boundary curves, special points and region names of ``sub``."""
+        """Draw the boundary curves, special points and region names of ``sub``.
+
+        The curve marks are kept and reused: setting the substance already drawn only redraws
+        what changed, and another substance reuses the same Lines (new ones only if it has more
+        curve pieces), so the page keeps its views instead of building new ones.
+        """
+        if sub is self.substance and self._drawn == (self.T_unit, self.p_unit):
+            return  # already drawn in these units
+        same = sub is self.substance
         self.substance = sub
-        self._boundary_si = []
-        for b in sub.boundaries:
-            T, p = b.curve(0.0, sub.p_max)
-            if len(T) >= 2:
-                self._boundary_si.append((b.kind, T, p))
-        self._special_si = [("triple point", *sub.triple), ("critical point", *sub.critical)]
-        self._region_si = _region_positions(sub, self.default_window(sub))
-        sc = {"x": self.sx, "y": self.sy}
-        self.curves = []
-        for kind, _T, _p in self._boundary_si:
-            st = STYLE[kind]
-            self.curves.append(
-                bq.Lines(
-                    x=np.array([0.0, 1.0]),
-                    y=np.array([1.0, 2.0]),
-                    scales=sc,
-                    colors=[st["color"]],
-                    line_style=st["dash"],
-                    stroke_width=st["width"],
-                    enable_hover=False,
+        if not same:
+            self._boundary_si = _curve_pieces(sub)
+            self._special_si = [
+                (name, T, p)
+                for name, (T, p) in (("triple point", sub.triple), ("critical point", sub.critical))
+            ]
+            self._region_si = _region_positions(sub, self.default_window(sub))
+            sc = {"x": self.sx, "y": self.sy}
+            while len(self._curve_pool) < len(self._boundary_si):
+                self._curve_pool.append(
+                    bq.Lines(
+                        x=np.array([0.0, 1.0]),
+                        y=np.array([1.0, 2.0]),
+                        scales=sc,
+                        enable_hover=False,
+                    )
                 )
-            )
-        self.figure.marks = self.curves + [
-            self.regions,
-            self.route_line,
-            self.crossings,
-            self.triple,
-            self.critical,
-            self.corners,
-        ]
+            self.curves = self._curve_pool[: len(self._boundary_si)]
+            for line, (kind, extrapolated, _T, _p) in zip(
+                self.curves, self._boundary_si, strict=True
+            ):
+                st = STYLE[kind]
+                ex = STYLE["extrapolated"]
+                with line.hold_sync():
+                    line.colors = [st["color"]]
+                    line.line_style = ex["dash"] if extrapolated else st["dash"]
+                    line.stroke_width = ex["width"] if extrapolated else st["width"]
+            marks = self.curves + [
+                self.regions,
+                self.route_line,
+                self.crossings,
+                self.triple,
+                self.critical,
+                self.corners,
+            ]
+            if list(self.figure.marks) != marks:
+                self.figure.marks = marks
         self.redraw_static()
 
     def redraw_static(self) -> None:
         """Boundary curves, points and region names in the current units."""
         if self.substance is None:
             return
-        for line, (_kind, T, p) in zip(self.curves, self._boundary_si, strict=True):
+        self._drawn = (self.T_unit, self.p_unit)
+        for line, (_kind, _ex, T, p) in zip(self.curves, self._boundary_si, strict=True):
             x, y = to_display(T, p, self.T_unit, self.p_unit)
-            line.x, line.y = x, y
+            with line.hold_sync():
+                line.x, line.y = x, y
         for mark, (name, T, p) in zip((self.triple, self.critical), self._special_si, strict=True):
-            x, y = to_display([T], [p], self.T_unit, self.p_unit)
-            mark.x, mark.y = x, y
-            mark.tooltip.value = (
-                f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>{self.fmt_p(p)}</div>"
-            )
+            if math.isfinite(T) and math.isfinite(p):
+                x, y = to_display([T], [p], self.T_unit, self.p_unit)
+                tip = f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>{self.fmt_p(p)}</div>"
+            else:  # a substance built from data without this point
+                x = y = np.array([], dtype=float)
+                tip = f"<div class='pp-tip'>no {name} given</div>"
+            with mark.hold_sync():
+                mark.x, mark.y = x, y
+            mark.tooltip.value = tip
         rx, ry = to_display(
             [r[1] for r in self._region_si],
             [r[2] for r in self._region_si],
             self.T_unit,
             self.p_unit,
         )
-        self.regions.x, self.regions.y = rx, ry
-        self.regions.text = [r[0] for r in self._region_si]
+        with self.regions.hold_sync():
+            self.regions.x, self.regions.y = rx, ry
+            self.regions.text = [r[0] for r in self._region_si]
         self.ax.label = f"Temperature [{UNIT_LABELS[self.T_unit]}]"
         self.ay.label = f"Pressure [{UNIT_LABELS[self.p_unit]}]"
 
@@ -282,9 +310,9 @@ class PhaseDiagram:
 
     # -- window --------------------------------------------------------------------------------
     def default_window(self, sub: Substance) -> tuple[float, float, float, float]:
-        """(T_lo, T_hi [K], p_lo, p_hi [Pa]) showing the triple and critical points with margin."""
-        T_t, p_t = sub.triple
-        T_c, p_c = sub.critical
+        """(T_lo, T_hi [K], p_lo, p_hi [Pa]) showing the triple and critical points with margin
+        (a substance built from data may lack either: the curves' own ends stand in)."""
+        T_t, p_t, T_c, p_c = _anchors(sub)
         span = T_c - T_t
         T_lo = max(sub.T_min, T_t - 0.3 * span)
         T_hi = min(sub.T_max, T_c + 0.3 * span)
@@ -292,7 +320,9 @@ class PhaseDiagram:
         if sub.sublimation is not None and sub.sublimation.T_min <= T_lo <= sub.sublimation.T_max:
             p_lo = min(p_lo, sub.sublimation.p_of_T(T_lo) / 3.0)
         p_hi = min(sub.p_max, p_c * 30.0)
-        return T_lo, T_hi, max(p_lo, 1e-3), p_hi
+        if not T_hi > T_lo:
+            T_lo, T_hi = T_lo - 10.0, T_hi + 10.0
+        return T_lo, T_hi, max(p_lo, 1e-3), max(p_hi, 10 * max(p_lo, 1e-3))
 
     def fit_window(self, corners: list[tuple[float, float]]) -> tuple[float, float, float, float]:
         """The default window grown to hold every corner of the route, with a margin."""
@@ -335,17 +365,29 @@ class PhaseDiagram:
             self.figure.remove_class("pp-pan")
 
     # -- route ---------------------------------------------------------------------------------
-    def set_route(self, corners: list[tuple[float, float]], valid: bool = True) -> None:
-        """Draw the route through ``corners`` (SI) and its corner markers."""
+    def set_route(
+        self,
+        corners: list[tuple[float, float]],
+        valid: bool = True,
+        path: list[tuple[float, float]] | None = None,
+    ) -> None:
+        """Draw the route through ``path`` (SI points along every leg; the corners joined by
+        straight lines if None) and the corner markers at ``corners``."""
         if corners:
             x, y = to_display(
                 [c[0] for c in corners], [c[1] for c in corners], self.T_unit, self.p_unit
             )
         else:
             x = y = np.array([], dtype=float)
+        if path:
+            lx, ly = to_display(
+                [c[0] for c in path], [c[1] for c in path], self.T_unit, self.p_unit
+            )
+        else:
+            lx, ly = x, y
         st = STYLE["route"] if valid else STYLE["route_invalid"]
         with self.route_line.hold_sync():
-            self.route_line.x, self.route_line.y = x, y
+            self.route_line.x, self.route_line.y = lx, ly
             self.route_line.colors = [st["color"]]
             self.route_line.stroke_width = st["width"]
             self.route_line.line_style = "solid" if valid else "dashed"
@@ -389,7 +431,7 @@ class PhaseDiagram:
             self.triple,
             self.critical,
             self.regions,
-            *self.curves,
+            *self._curve_pool,
         ]
 
 
@@ -398,8 +440,7 @@ def _region_positions(
 ) -> list[tuple[str, float, float]]:
     """Where to write the four region names (SI), inside each region and the default window."""
     T_lo, T_hi, p_lo, p_hi = window
-    T_t, p_t = sub.triple
-    T_c, p_c = sub.critical
+    T_t, p_t, T_c, p_c = _anchors(sub)
     lp_t, lp_c = math.log10(p_t), math.log10(p_c)
     out: list[tuple[str, float, float]] = []
     # vapor: below the vapor-pressure curve, right of the triple point, low pressure
@@ -409,7 +450,7 @@ def _region_positions(
     # liquid: just below the critical temperature, well above the vapor-pressure curve
     T_l = T_t + 0.45 * (T_c - T_t)
     p_l = 10 ** (lp_c + 0.45 * (math.log10(p_hi) - lp_c))
-    if sub.vapor is not None:
+    if sub.vapor is not None and sub.vapor.T_min <= T_l <= sub.vapor.T_max:
         p_l = max(p_l, 10 * sub.vapor.p_of_T(T_l))
     for b in sub.melting:
         if b.solid_side == "above" and b.T_min <= T_l <= b.T_max:
@@ -426,11 +467,73 @@ def _region_positions(
                 else p_l
             )
     out.append(("LIQUID", T_l, min(p_l, p_hi / 2)))
-    # solid: left of the triple point
-    T_s = T_lo + 0.35 * (T_t - T_lo) if T_t > T_lo else T_t
-    out.append(("SOLID", T_s, 10 ** (0.5 * (lp_t + lp_c))))
-    # supercritical: right of and above the critical point
-    out.append(
-        ("SUPERCRITICAL", T_c + 0.55 * (T_hi - T_c), 10 ** (lp_c + 0.5 * (math.log10(p_hi) - lp_c)))
-    )
+    # solid: left of the triple point (only where a solid boundary is known)
+    if sub.melting or sub.sublimation is not None:
+        T_s = T_lo + 0.35 * (T_t - T_lo) if T_t > T_lo else T_t
+        out.append(("SOLID", T_s, 10 ** (0.5 * (lp_t + lp_c))))
+    # supercritical: right of and above the critical point (only where one is known)
+    if math.isfinite(sub.critical[0]) and math.isfinite(sub.critical[1]):
+        out.append(
+            (
+                "SUPERCRITICAL",
+                T_c + 0.55 * (T_hi - T_c),
+                10 ** (lp_c + 0.5 * (math.log10(p_hi) - lp_c)),
+            )
+        )
     return out
+
+
+def _anchors(sub: Substance) -> tuple[float, float, float, float]:
+    """(T_t, p_t, T_c, p_c) for placing the window and the region names: the triple and
+    critical points, or, where a substance built from data lacks one, the low and high ends of
+    its vapor-pressure curve (else of its temperature range)."""
+    T_t, p_t = sub.triple
+    T_c, p_c = sub.critical
+    v = sub.vapor
+    if not (math.isfinite(T_t) and math.isfinite(p_t) and p_t > 0):
+        if v is not None:
+            T_t, p_t = v.T_min, v.p_of_T(v.T_min)
+        else:
+            T_t, p_t = sub.T_min, 1e3
+    if not (math.isfinite(T_c) and math.isfinite(p_c) and p_c > 0):
+        if v is not None:
+            T_c, p_c = v.T_max, v.p_of_T(v.T_max)
+        else:
+            T_c, p_c = sub.T_max, 1e7
+    if not T_c > T_t:
+        T_c = T_t + 1.0
+    if not p_c > p_t:
+        p_c = p_t * 10.0
+    return T_t, p_t, T_c, p_c
+
+
+def _curve_pieces(sub: Substance) -> list[tuple[str, bool, np.ndarray, np.ndarray]]:
+    """(kind, beyond the data, T [K], p [Pa]) of each piece to draw: every boundary's cached
+    sample, split where a branch built from data (``Boundary.T_valid``) leaves its data range.
+    Neighbouring pieces share their end point, so the curve is drawn unbroken."""
+    out = []
+    for b in sub.boundaries:
+        T, p = b.curve(0.0, sub.p_max)
+        if len(T) < 2:
+            continue
+        valid = getattr(b, "T_valid", None)
+        if valid is None:
+            out.append((b.kind, False, T, p))
+            continue
+        lo, hi = valid
+        cuts = [float(t) for t in (lo, hi) if T[0] < t < T[-1]]
+        edges = [float(T[0]), *cuts, float(T[-1])]
+        for a, z in zip(edges[:-1], edges[1:], strict=False):
+            inside = (T > a) & (T < z)
+            Ts = np.concatenate(([a], T[inside], [z]))
+            ps = np.concatenate(([_p_at(b, a, T, p)], p[inside], [_p_at(b, z, T, p)]))
+            mid = 0.5 * (a + z)
+            out.append((b.kind, not (lo <= mid <= hi), Ts, ps))
+    return out
+
+
+def _p_at(b: Any, T: float, Ts: np.ndarray, ps: np.ndarray) -> float:
+    try:
+        return float(b.p_of_T(T))
+    except Exception:  # drawing only: fall back to the sample's interpolant in ln p
+        return float(np.exp(np.interp(T, Ts, np.log(ps))))

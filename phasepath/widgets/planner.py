@@ -1,10 +1,12 @@
 """The route planner: draw, edit and read a route on a substance's phase diagram.
 
 State lives in traitlets (``substance``, ``route``, ``report``, the display units, the leg kind
-in force, the mode). The planner keeps the user's drawing as plain data (see ``_spec``), builds a
-:class:`phasepath.Route` from it through the core and analyses it with ``Route.analyze``; it never
-computes a crossing itself. Every change ends in one batched update of the figure, the leg list
-and the tables (``hold_sync`` on each touched widget), so the page redraws once.
+in force, the event that ends the next drawn leg, the mode). The planner keeps the user's drawing
+as plain data (see ``_spec``), builds a :class:`phasepath.Route` from it through the core and
+analyses it with ``Route.analyze``; it never computes a crossing or a state itself. Each leg is
+drawn along the path the core reports for it (see ``_paths``). Every change ends in one batched
+update of the figure, the leg list and the tables (``hold_sync`` on each touched widget), so the
+page redraws once.
 
 >>> import phasepath as pp
 >>> route = pp.Route("CO2", T="-20 degC", p="30 bar").isobar(T="20 degC")
@@ -26,19 +28,30 @@ from typing import Any
 import ipywidgets as W
 import traitlets as tl
 
-from ..errors import PhasePathError
+from ..errors import PhasePathError, RouteError
 from ..report import Report
-from ..route import Route
+from ..route import EVENTS, Route
+from ..substances import Substance
 from ..substances import substance as _substance
 from ..substances import substances as _substances
 from ..units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, parse_quantity
-from . import _spec
-from .controls import CSS, LegList, cautions_html, crossing_tip, results_html
-from .diagram import STYLE, PhaseDiagram, from_display
+from . import _paths, _spec
+from .controls import CSS, LegList, cautions_html, crossing_tip, legend_html, results_html
+from .diagram import PhaseDiagram, from_display
 
 __all__ = ["RoutePlanner"]
 
-_KINDS = ("auto", "isotherm", "isobar")
+_KINDS = ("auto", *_spec.KINDS)
+_KIND_BUTTONS = [
+    ("auto", "auto", "pick constant T or constant p from the click's direction"),
+    ("constant T", "isotherm", "next leg holds the temperature (isotherm)"),
+    ("constant p", "isobar", "next leg holds the pressure (isobar)"),
+    ("constant v", "isochore", "sealed vessel: the click sets the end temperature"),
+    ("constant h", "isenthalp", "valve or vent: the click sets the end pressure"),
+    ("constant s", "isentrope", "ideal compressor or expander: the click sets the end pressure"),
+]
+#: Events offered for ending a drawn constant-p or constant-T leg ("" = at the click).
+_EVENT_CHOICES = (*EVENTS, "5 K superheat", "5 K subcooling")
 _UNIT_TEXT = {"degC": "°C", "degF": "°F", "K": "K"}
 _HISTORY = 200  # undo steps kept
 
@@ -49,7 +62,8 @@ class RoutePlanner(W.VBox):
     Parameters
     ----------
     substance : str, Substance or Route
-        The substance to start with (``"CO2"``, ``"water"``), or a route to draw.
+        The substance to start with (``"CO2"``, ``"water"``, a substance built with
+        ``pp.Substance.from_data``), or a route to draw.
     route : Route, optional
         A route to draw (its substance wins over ``substance``).
     T_unit, p_unit, energy_unit : str
@@ -63,6 +77,13 @@ class RoutePlanner(W.VBox):
         route of the substance; ``message`` then says why). Assigning a route draws it.
     report : Report or None
         The analysis of ``route`` (None without legs).
+    leg_kind : str
+        The kind of the next leg drawn with the mouse: "auto" (constant T or constant p, from the
+        click's direction), "isotherm", "isobar", "isochore" (the click sets the end
+        temperature), "isenthalp" or "isentrope" (the click sets the end pressure).
+    until : str
+        An event that ends the next constant-p or constant-T leg instead of the click's
+        coordinate ("fully vapor", "first solid", "5 K superheat", ...); "" for the click.
     message : str
         The last error or status, as shown above the table.
     """
@@ -74,6 +95,7 @@ class RoutePlanner(W.VBox):
     p_unit = tl.Enum(PRESSURE_UNITS, "bar")
     energy_unit = tl.Enum(ENERGY_UNITS, "kJ/kg")
     leg_kind = tl.Enum(_KINDS, "auto")
+    until = tl.Unicode("")
     mode = tl.Enum(("draw", "pan"), "draw")
     message = tl.Unicode("")
 
@@ -90,7 +112,7 @@ class RoutePlanner(W.VBox):
             route, substance = substance, substance.substance
         if route is not None:
             substance = route.substance
-        sub = _substance(substance)
+        sub = route.substance if route is not None else _substance(substance)
         super().__init__(layout=W.Layout(width="100%"))
         self.add_class("pp-planner")
         self._busy = True
@@ -98,21 +120,26 @@ class RoutePlanner(W.VBox):
         self._redo: list[_spec.Spec] = []
         self._valid = True
         self._shown: list[tuple[float, float]] = []
+        self._corners: list[tuple[float, float]] = []  # of the drawing in force (SI)
+        self._path: list[tuple[float, float]] | None = None  # along every leg (SI)
+        self._sub: Substance = sub
+        self._names: tuple[str, ...] = ()
         self.T_unit, self.p_unit, self.energy_unit = T_unit, p_unit, energy_unit
         self.substance = sub.name
         self.diagram = PhaseDiagram(T_unit, p_unit)
         self._build_controls()
         self._layout()
         self._busy = False
-        self._spec = _spec.from_route(route) if route is not None else _spec.empty(sub.name)
+        self._spec = _spec.from_route(route) if route is not None else _spec.empty(_key_of(sub))
         self.diagram.set_substance(sub)
+        self.legend.value = legend_html(_has_data_ranges(sub))
         self._apply(self._spec, fit=True)
 
     # -- construction --------------------------------------------------------------------------
     def _build_controls(self) -> None:
-        names = sorted(_substances(), key=str.lower)
+        self._names = self._picker_names()
         self.picker = W.Combobox(
-            options=names,
+            options=list(self._names),
             ensure_option=False,
             continuous_update=False,
             placeholder="type to filter…",
@@ -120,14 +147,21 @@ class RoutePlanner(W.VBox):
             layout=W.Layout(width="260px"),
         )
         self.kind_toggle = W.ToggleButtons(
-            options=[("auto", "auto"), ("constant T", "isotherm"), ("constant p", "isobar")],
+            options=[(label, kind) for label, kind, _ in _KIND_BUTTONS],
             value="auto",
-            tooltips=[
-                "pick the kind from the click's direction",
-                "next leg holds the temperature (isotherm)",
-                "next leg holds the pressure (isobar)",
-            ],
-            style={"button_width": "92px"},
+            tooltips=[tip for _, _, tip in _KIND_BUTTONS],
+            style={"button_width": "84px"},
+        )
+        self.until_pick = W.Combobox(
+            options=list(_EVENT_CHOICES),
+            value="",
+            ensure_option=False,
+            continuous_update=False,
+            placeholder="at the click",
+            description="ends",
+            tooltip="end the next constant-p or constant-T leg on an event",
+            style={"description_width": "initial"},
+            layout=W.Layout(width="190px"),
         )
         self.mode_toggle = W.ToggleButtons(
             options=[("draw", "draw"), ("pan/zoom", "pan")],
@@ -166,21 +200,30 @@ class RoutePlanner(W.VBox):
             layout=W.Layout(width="160px"),
         )
         self.start_T = W.Text(placeholder="T, e.g. 25 degC", layout=W.Layout(width="120px"))
-        self.start_p = W.Text(placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px"))
+        self.start_p = W.Text(
+            placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px")
+        )
         self.start_btn = W.Button(description="place start", layout=W.Layout(width="110px"))
         self.start_msg = W.HTML()
-        self.legs = LegList(self._edit_corner, self._delete_corner)
+        self.legs = LegList(self._edit_corner, self._delete_corner, self._typed_leg)
         self.status = W.HTML()
         self.results = W.HTML()
-        self.legend = W.HTML(_legend_html())
+        self.legend = W.HTML(legend_html())
         self.cautions = W.HTML()
-        self.downloads = W.HTML()
+        self.files_btn = W.Button(
+            description="files",
+            icon="download",
+            tooltip="prepare route.json, crossings.csv and legs.csv of the route shown",
+            layout=W.Layout(width="80px"),
+        )
+        self.downloads = W.HTML(_NO_FILES)
         self.png_btn = W.Button(description="PNG", icon="image", layout=W.Layout(width="80px"))
         self.svg_btn = W.Button(description="SVG", icon="image", layout=W.Layout(width="80px"))
         self.style_html = W.HTML(CSS, layout=W.Layout(height="0px", overflow="hidden"))
 
         self.picker.observe(self._picked, names="value")
         tl.link((self, "leg_kind"), (self.kind_toggle, "value"))
+        tl.link((self, "until"), (self.until_pick, "value"))
         tl.link((self, "mode"), (self.mode_toggle, "value"))
         tl.link((self, "T_unit"), (self.T_pick, "value"))
         tl.link((self, "p_unit"), (self.p_pick, "value"))
@@ -190,6 +233,7 @@ class RoutePlanner(W.VBox):
         self.redo_btn.on_click(lambda _b: self.redo())
         self.clear_btn.on_click(lambda _b: self.clear())
         self.start_btn.on_click(lambda _b: self._typed_start())
+        self.files_btn.on_click(lambda _b: self.prepare_files())
         self.png_btn.on_click(lambda _b: self.save_png())
         self.svg_btn.on_click(lambda _b: self.save_svg())
         c = self.diagram.corners
@@ -203,6 +247,7 @@ class RoutePlanner(W.VBox):
             [
                 self.picker,
                 self.kind_toggle,
+                self.until_pick,
                 self.mode_toggle,
                 self.fit_btn,
                 self.undo_btn,
@@ -219,6 +264,10 @@ class RoutePlanner(W.VBox):
             [
                 W.HTML("<div class='pp-h'>Start state</div>"),
                 W.HBox([self.start_T, self.start_p, self.start_btn]),
+                W.HTML(
+                    "<span style='font-size:11px;color:#555'>p may be a fill density "
+                    "instead (e.g. 450 kg/m3)</span>"
+                ),
                 self.start_msg,
             ]
         )
@@ -231,6 +280,7 @@ class RoutePlanner(W.VBox):
         export = W.HBox(
             [
                 W.HTML("<b>Export</b>&nbsp;"),
+                self.files_btn,
                 self.downloads,
                 W.HTML("&nbsp;diagram:&nbsp;"),
                 self.png_btn,
@@ -281,6 +331,18 @@ class RoutePlanner(W.VBox):
             return self._say(str(exc))
         return self._add(Ts, ps, kind)
 
+    def add_leg(self, kind: str, target: object = None, *, until: str | None = None) -> str:
+        """Add a leg at the end as typed in the leg list: ``add_leg("isenthalp", "1 atm")``,
+        ``add_leg("isobar", until="fully vapor")``. A bare number is in the display unit of the
+        coordinate the kind moves along. Returns the error message, or "" when it was added."""
+        text = f"until {until}" if until else ("" if target is None else str(target))
+        return self._typed_leg(kind, text)
+
+    def prepare_files(self) -> None:
+        """Build the download links (route.json, crossings.csv, legs.csv) of the route shown;
+        they are built on request only, and withdrawn when the route changes."""
+        self.downloads.value = self._download_links()
+
     def crossings_table(self) -> Any:
         """The crossings as a DataFrame in the display units (empty without a report)."""
         import pandas as pd
@@ -326,10 +388,7 @@ class RoutePlanner(W.VBox):
             return
         route: Route = change["new"]
         spec = _spec.from_route(route)
-        if route.substance.name != self.substance:
-            with self._quiet():
-                self.substance = route.substance.name
-            self.diagram.set_substance(route.substance)
+        self._use_substance(route.substance)
         self._commit(spec, force=True, fit=True)
 
     @tl.observe("substance")
@@ -337,16 +396,13 @@ class RoutePlanner(W.VBox):
         if self._busy:
             return
         try:
-            sub = _substance(change["new"])
+            sub = self._resolve(change["new"])
         except PhasePathError as exc:
             with self._quiet():
                 self.substance = change["old"]
             self._say(str(exc))
             return
-        if sub.name != change["new"]:
-            with self._quiet():
-                self.substance = sub.name
-        self._switch(sub.name)
+        self._switch(sub)
 
     @tl.observe("T_unit", "p_unit", "energy_unit")
     def _units_set(self, change: dict[str, Any]) -> None:
@@ -364,11 +420,13 @@ class RoutePlanner(W.VBox):
         if self._busy or not change["new"]:
             return
         try:
-            name = _substance(change["new"]).name
+            sub = self._resolve(change["new"])
         except PhasePathError as exc:
             self._say(str(exc))
             return
-        self.substance = name
+        if sub is self._sub:
+            return
+        self._switch(sub)
 
     def _corners_changed(self, change: dict[str, Any]) -> None:
         """A click added a point to the corner Scatter, or a drag ended and moved one."""
@@ -401,7 +459,8 @@ class RoutePlanner(W.VBox):
             self._redraw()
 
     def _dragging(self, _mark: Any, event: dict[str, Any]) -> None:
-        """While a corner is dragged: move only the route line (no analysis)."""
+        """While a corner is dragged: move only the route line, straight between the corners
+        (no analysis; the true path is drawn when the drag ends)."""
         try:
             i = int(event["index"])
             Ts, ps = self._point_text(event["point"]["x"], event["point"]["y"])
@@ -412,7 +471,7 @@ class RoutePlanner(W.VBox):
 
     def _hover_corner(self, _mark: Any, event: dict[str, Any]) -> None:
         i = _event_index(event)
-        pts = self._corners_or_empty()
+        pts = self._corners
         if i is None or i >= len(pts):
             return
         T, p = pts[i]
@@ -423,7 +482,7 @@ class RoutePlanner(W.VBox):
                 if i == 0
                 else self.report.legs[min(i, len(self.report.legs)) - 1].end
             )
-            phase = f"<br>{st.phase}"
+            phase = f"<br>{_esc(_state_text(st))}"
         self.diagram.corners.tooltip.value = (
             f"<div class='pp-tip'><b>corner {'S' if i == 0 else i}</b><br>"
             f"{self.diagram.fmt_T(T)}<br>{self.diagram.fmt_p(p)}{phase}</div>"
@@ -433,13 +492,20 @@ class RoutePlanner(W.VBox):
         i = _event_index(event)
         if self.report is None or i is None or i >= len(self.report.crossings):
             return
+        c = self.report.crossings[i]
+        detail = getattr(c, "detail", "")
         self.diagram.crossings.tooltip.value = (
             "<div class='pp-tip'>"
-            + crossing_tip(self.report.crossings[i], self.T_unit, self.p_unit, self.energy_unit)
+            + _esc(crossing_tip(c, self.T_unit, self.p_unit, self.energy_unit))
+            + (f"<br>{_esc(detail)}" if detail else "")
+            + "".join(f"<br>⚠ {_esc(h.kind)}: {_esc(h.reason)}" for h in c.hazards)
             + "</div>"
         )
 
     def _edit_corner(self, index: int, coord: str, typed: str) -> str:
+        if index == 0 and coord == "p" and _is_density(typed):
+            spec = _spec.copy_with_start(self._spec, density=typed.strip())
+            return self._commit(spec, keep_fields=True)
         try:
             value = self._typed_text(typed, "temperature" if coord == "T" else "pressure")
         except PhasePathError as exc:
@@ -457,23 +523,61 @@ class RoutePlanner(W.VBox):
     def _typed_start(self) -> None:
         try:
             Ts = self._typed_text(self.start_T.value, "temperature")
-            ps = self._typed_text(self.start_p.value, "pressure")
+            if _is_density(self.start_p.value):
+                ps, density = None, self.start_p.value.strip()
+            else:
+                ps, density = self._typed_text(self.start_p.value, "pressure"), None
         except PhasePathError as exc:
             self.start_msg.value = f"<span class='pp-err'>⚠ {_esc(str(exc))}</span>"
             return
-        if self._spec["start"] is None:
+        if density is not None:
+            spec = _spec.copy_with_start(self._spec, T=Ts, density=density)
+        elif self._spec["start"] is None:
             spec = _spec.add_corner(self._spec, Ts, ps, "isobar")
         else:
             spec = _spec.move_corner(self._spec, 0, Ts, ps)
         msg = self._commit(spec, fit=True)
         self.start_msg.value = f"<span class='pp-err'>⚠ {_esc(msg)}</span>" if msg else ""
 
+    def _typed_leg(self, kind: str, typed: str) -> str:
+        """A leg typed in the leg list: a target in the kind's coordinate (an isochore takes a
+        temperature or a pressure), or ``until <event>`` on a constant-p or constant-T leg."""
+        text = (typed or "").strip()
+        try:
+            if not text:
+                raise RouteError(f"type the {kind} leg's target ({_spec.MOVES[kind]}) or an event")
+            low = text.lower()
+            if low.startswith("until "):
+                target: dict[str, Any] = {"until": text[6:].strip()}
+            elif low in EVENTS or low.endswith(("superheat", "subcooling")):
+                target = {"until": text}
+            elif kind == "isochore":
+                try:
+                    target = {"T": self._typed_text(text, "temperature")}
+                except PhasePathError:
+                    target = {"p": self._typed_text(text, "pressure")}
+            else:
+                coord = _spec.MOVES[kind]
+                dim = "temperature" if coord == "T" else "pressure"
+                target = {coord: self._typed_text(text, dim)}
+            spec = _spec.add_leg(self._spec, kind, **target)
+        except PhasePathError as exc:
+            return self._say(str(exc), keep_fields=True)
+        return self._commit(spec, fit=True)
+
     # -- edits ---------------------------------------------------------------------------------
     def _add(self, T_text: str, p_text: str, kind: str | None) -> str:
         kind = kind or self.leg_kind
         if kind == "auto":
             kind = self._auto_kind(T_text, p_text)
-        return self._commit(_spec.add_corner(self._spec, T_text, p_text, kind))
+        until = self.until.strip() if kind in ("isobar", "isotherm") else ""
+        try:
+            spec = _spec.add_corner(self._spec, T_text, p_text, kind, until or None)
+        except PhasePathError as exc:
+            self._say(str(exc))
+            self._redraw()
+            return str(exc)
+        return self._commit(spec)
 
     def _move(
         self,
@@ -485,12 +589,15 @@ class RoutePlanner(W.VBox):
         try:
             spec = _spec.move_corner(self._spec, index, T_text, p_text)
         except (IndexError, PhasePathError) as exc:
-            return self._say(str(exc))
+            msg = self._say(str(exc), keep_fields=keep_fields)
+            if not keep_fields:
+                self._redraw()  # the dragged corner goes back where it was
+            return msg
         return self._commit(spec, keep_fields=keep_fields)
 
     def _auto_kind(self, T_text: str, p_text: str) -> str:
         """The kind whose leg runs closer to the click's direction on screen."""
-        pts = self._corners_or_empty()
+        pts = self._corners
         win = self.diagram.window() or self.diagram.fit_window(pts)
         if not pts:
             return "isobar"
@@ -519,10 +626,29 @@ class RoutePlanner(W.VBox):
         self._apply(spec, fit=fit, result=result)
         return err
 
-    def _switch(self, name: str) -> None:
-        spec = {**self._spec, "substance": name}
-        self.diagram.set_substance(_substance(name))
+    def _switch(self, sub: Substance) -> None:
+        self._use_substance(sub)
+        spec = {**self._spec, "substance": _key_of(sub)}
         self._commit(spec, force=True, fit=True)
+
+    def _use_substance(self, sub: Substance) -> None:
+        """Make ``sub`` the planner's substance: the trait, the diagram's curves, the legend."""
+        if sub is self._sub and self.substance == sub.name:
+            return
+        self._sub = sub
+        with self._quiet():
+            self.substance = sub.name
+        self.diagram.set_substance(sub)
+        self.legend.value = legend_html(_has_data_ranges(sub))
+
+    def _resolve(self, name: object) -> Substance:
+        """The substance for a name (the planner's own one first: a substance built from data
+        may share its name with nothing else)."""
+        if isinstance(name, Substance):
+            return name
+        if isinstance(name, str) and name == self._sub.name:
+            return self._sub
+        return _substance(name)
 
     # -- state -> view -------------------------------------------------------------------------
     def _apply(
@@ -532,14 +658,19 @@ class RoutePlanner(W.VBox):
         result: tuple[Route | None, Report | None, str] | None = None,
     ) -> None:
         """Make ``spec`` the drawing: build and analyse the route, then redraw once."""
-        if spec["substance"] != self.substance:
-            sub = _substance(spec["substance"])
-            with self._quiet():
-                self.substance = sub.name
-            self.diagram.set_substance(sub)
+        try:
+            sub = self._resolve(spec["substance"])
+        except PhasePathError:
+            sub = self._sub
+        self._use_substance(sub)
         self._spec = spec
         route, report, msg = result if result is not None else _evaluate(spec)
         self._valid = not msg
+        try:
+            self._corners = _spec.corners(spec, route)
+        except PhasePathError:
+            self._corners = []
+        self._path = _paths.route_path(report) if report is not None and not msg else None
         with self._quiet():
             self.route = route if not msg else None
             self.set_trait("report", report if not msg else None)
@@ -548,32 +679,40 @@ class RoutePlanner(W.VBox):
     def _refresh(self, msg: str | None = None, fit: bool = False) -> None:
         if msg is None:
             msg = self.message
-        pts = self._corners_or_empty()
+        pts = self._corners
         with self._batch():
             if fit:
                 self.fit()
             self._draw_route(pts)
             kinds = ["start"] + [leg["kind"] for leg in self._spec["legs"]]
-            self.legs.show(pts, kinds[: len(pts)], self.T_unit, self.p_unit)
+            events = [""] + [str(leg.get("until", "")) for leg in self._spec["legs"]]
+            if self.route is not None:  # the core's words for the event ("fully vapor at ...")
+                events = [""] + [leg.event or "" for leg in self.route.legs]
+            self.legs.show(pts, kinds[: len(pts)], self.T_unit, self.p_unit, events[: len(pts)])
             self.start_box.layout.display = "none" if pts else None
             self.results.value = results_html(
                 self.report, self.T_unit, self.p_unit, self.energy_unit
             )
-            self.downloads.value = self._download_links()
-            self.cautions.value = cautions_html(_substance(self.substance), pts, self.report)
+            if self.downloads.value != _NO_FILES:
+                self.downloads.value = _NO_FILES  # links of an older route: withdrawn
+            self.cautions.value = cautions_html(self._sub, pts, self.report)
             self.undo_btn.disabled = not self._undo
             self.redo_btn.disabled = not self._redo
+            names = self._picker_names()
+            if names != self._names:
+                self._names = names
+                self.picker.options = list(names)
             with self._quiet():
-                self.picker.value = self.substance
+                self.picker.value = self._sub.name
             self._say(msg)
 
     def _redraw(self) -> None:
         with self._batch():
-            self._draw_route(self._corners_or_empty())
+            self._draw_route(self._corners)
 
     def _draw_route(self, pts: list[tuple[float, float]]) -> None:
         with self._quiet():
-            self.diagram.set_route(pts, valid=self._valid)
+            self.diagram.set_route(pts, valid=self._valid, path=self._path if self._valid else None)
             self._shown = list(zip(self.diagram.corners.x, self.diagram.corners.y, strict=True))
         cross = [(c.T, c.p) for c in self.report.crossings] if self.report else []
         self.diagram.set_crossings(cross)
@@ -584,9 +723,11 @@ class RoutePlanner(W.VBox):
             self.status.value = f"<div class='pp-status pp-bad'>⚠ {_esc(msg)}</div>"
         elif self.report is not None:
             n = len(self.report.crossings)
+            nh = len({h.caution for h in _hazards(self.report)})
+            flags = f", {nh} hazard flag(s): see the tables and the cautions" if nh else ""
             self.status.value = (
-                f"<div class='pp-status pp-ok'>{self.substance}: "
-                f"{len(self.report.legs)} leg(s), {n} crossing(s).</div>"
+                f"<div class='pp-status pp-ok'>{_esc(self._sub.name)}: "
+                f"{len(self.report.legs)} leg(s), {n} crossing(s){flags}.</div>"
             )
         else:
             self.status.value = ""
@@ -594,10 +735,16 @@ class RoutePlanner(W.VBox):
 
     # -- helpers -------------------------------------------------------------------------------
     def _corners_or_empty(self) -> list[tuple[float, float]]:
-        try:
-            return _spec.corners(self._spec)
-        except PhasePathError:
-            return []
+        return list(self._corners)
+
+    def _picker_names(self) -> tuple[str, ...]:
+        """Substances built from data in this session first, then the reference substances."""
+        from ..custom import registered
+
+        custom = [n for n in registered() if n]
+        if self._sub.name not in custom and self._sub.eos is None:
+            custom.append(self._sub.name)
+        return tuple(custom + sorted(_substances(), key=str.lower))
 
     def _point_text(self, x: float, y: float) -> tuple[str, str]:
         T, p = from_display(x, y, self.T_unit, self.p_unit)
@@ -615,6 +762,7 @@ class RoutePlanner(W.VBox):
         return f"{text} {unit}"
 
     def _download_links(self) -> str:
+        """Data links of the route file and the two tables (built only when asked for)."""
         import base64
 
         links = []
@@ -670,6 +818,12 @@ class RoutePlanner(W.VBox):
             yield
 
 
+_NO_FILES = (
+    "<span style='font-size:12px;color:#555'>press “files” for route.json, crossings.csv "
+    "and legs.csv</span>"
+)
+
+
 def _evaluate(spec: _spec.Spec) -> tuple[Route | None, Report | None, str]:
     """(route, report, error message) of a drawing; the core does all the work."""
     try:
@@ -689,6 +843,46 @@ def _evaluate(spec: _spec.Spec) -> tuple[Route | None, Report | None, str]:
         )
 
 
+def _key_of(sub: Substance) -> Any:
+    """How a spec names a substance: its name, or the substance itself where the name alone
+    would not find it again (built from data under a reference substance's name)."""
+    try:
+        return sub.name if _substance(sub.name) is sub else sub
+    except PhasePathError:
+        return sub
+
+
+def _has_data_ranges(sub: Substance) -> bool:
+    return any(getattr(b, "T_valid", None) is not None for b in sub.boundaries)
+
+
+def _hazards(report: Report) -> list[Any]:
+    return [h for leg in report.legs for h in leg.hazards] + [
+        h for c in report.crossings for h in c.hazards
+    ]
+
+
+def _is_density(text: object) -> bool:
+    """True for a typed density ("450 kg/m3"), which a start takes instead of a pressure."""
+    if not isinstance(text, str) or "/" not in text:
+        return False
+    try:
+        parse_quantity(text, "density")
+    except PhasePathError:
+        return False
+    return True
+
+
+def _state_text(st: Any) -> str:
+    text = st.phase + (f" (ice {st.form})" if st.form else "")
+    parts = []
+    if st.vapor_fraction is not None:
+        parts.append(f"vapor {st.vapor_fraction:.1%}")
+    if st.solid_fraction is not None:
+        parts.append(f"solid {st.solid_fraction:.1%}")
+    return text + (f", {', '.join(parts)} by mass" if parts else "")
+
+
 def _event_index(event: dict[str, Any]) -> int | None:
     data = event.get("data") or {}
     i = data.get("index", event.get("index"))
@@ -699,35 +893,3 @@ def _esc(text: str) -> str:
     import html
 
     return html.escape(text)
-
-
-def _legend_html() -> str:
-    def line(kind: str) -> str:
-        st = STYLE[kind]
-        dash = {
-            "solid": "",
-            "dashed": "stroke-dasharray='7 4'",
-            "dash_dotted": "stroke-dasharray='7 3 2 3'",
-        }[st["dash"]]
-        return (
-            f"<span class='pp-key'><svg width='30' height='10'><line x1='0' y1='5' x2='30' "
-            f"y2='5' stroke='{st['color']}' stroke-width='2.5' {dash}/></svg> "
-            f"{st['label']}</span>"
-        )
-
-    return (
-        "<div class='pp-legend'>"
-        + line("vaporization")
-        + line("melting")
-        + line("sublimation")
-        + "<span class='pp-key'><svg width='12' height='12'><polygon points='6,1 11,11 1,11' "
-        "fill='#1d1d1f'/></svg> triple point</span>"
-        + "<span class='pp-key'><svg width='12' height='12'><rect x='1.5' y='1.5' width='9' "
-        "height='9' fill='#fff' stroke='#1d1d1f' stroke-width='2'/></svg> critical point"
-        "</span>"
-        + "<span class='pp-key'><svg width='30' height='12'><line x1='0' y1='6' x2='30' y2='6' "
-        "stroke='#1d1d1f' stroke-width='3'/><circle cx='15' cy='6' r='4' fill='#fff' "
-        "stroke='#1d1d1f' stroke-width='2'/></svg> route (drag a corner)</span>"
-        + "<span class='pp-key'><svg width='14' height='14'><polygon points='7,1 13,7 7,13 1,7'"
-        " fill='#f2b01e' stroke='#1d1d1f' stroke-width='1.2'/></svg> crossing</span></div>"
-    )
