@@ -120,12 +120,17 @@ def loads_route(text: str, fmt: str | None = "json", *, source: str = "<text>") 
         raise _error(f"route file is more than the {MAX_BYTES} bytes phasepath reads", source)
     if fmt is None:
         fmt = "json" if text.lstrip().startswith("{") else "yaml"
-    if fmt == "json":
-        data, lines = _read_json(text, source)
-    elif fmt == "yaml":
-        data, lines = _read_yaml(text, source)
-    else:
+    if fmt not in ("json", "yaml"):
         raise _error(f"unknown route file format {fmt!r}; choose 'json' or 'yaml'", source)
+    try:
+        data, lines = _read_json(text, source) if fmt == "json" else _read_yaml(text, source)
+    except RecursionError:
+        raise _error("values are nested too deeply: a route file is a few levels deep",
+                     source) from None
+    except ValueError as exc:  # e.g. an integer of more digits than Python converts
+        if isinstance(exc, RouteFileError):
+            raise
+        raise _error(f"not a valid {fmt.upper()} route file: {str(exc)[:120]}", source) from None
     return _build(data, lines, source)
 
 
@@ -446,7 +451,7 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
         if kind is None:
             raise fail(f"missing value: every leg needs a kind ({', '.join(_LEG_TARGETS)})",
                        "legs", i, "kind")
-        if kind not in _LEG_TARGETS or kind not in LEG_KINDS:
+        if not isinstance(kind, str) or kind not in _LEG_TARGETS or kind not in LEG_KINDS:
             raise fail(f"unknown leg kind {kind!r}; known: {', '.join(_LEG_TARGETS)}",
                        "legs", i, "kind")
         targets = _LEG_TARGETS[kind]

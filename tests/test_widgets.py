@@ -10,12 +10,21 @@ Check values:
 * Water at 101.325 kPa: saturation temperature and latent heat from the ``iapws`` library
   (IAPWS-95), an implementation independent of phasepath's; 2257 kJ/kg at 100 degC is the common
   steam-table value (common practice).
+* CO2 let down through a valve from 20 degC, 60 bar to 1 atm: the end temperature is the normal
+  sublimation temperature of CO2, 194.686 K (Span & Wagner 1996, sublimation-pressure equation;
+  from memory); the mass fraction of vapor follows from the enthalpy balance h_in = h_vapor -
+  (1 - x) L_sub with h from CoolProp called directly and L_sub = 25.2 kJ/mol = 573 kJ/kg (CRC
+  Handbook of Chemistry and Physics, enthalpies of phase transition; from memory, +-2 %).
+* CO2 sealed at 600 kg/m3: states, the liquid-full temperature (saturated-liquid density = fill
+  density) and isentropic compression end states from CoolProp (Span & Wagner 1996 EOS) called
+  directly, not through phasepath.
 * Everything else is compared with what the core computes for the same route (the widget must
   show the core's numbers, not its own).
 """
 
 from __future__ import annotations
 
+import math
 import subprocess
 import sys
 
@@ -243,7 +252,13 @@ def test_assigning_and_constructing_with_a_route():
 
 def test_exports(co2, tmp_path):
     two_legs(co2)
+    # the links are built on request, not on every refresh
+    assert "download=" not in co2.downloads.value
+    co2.files_btn.click()
     assert "download='crossings.csv'" in co2.downloads.value
+    assert "download='route.json'" in co2.downloads.value
+    drag(co2, 2, 25.0, 40.0)  # the route changes: the old links are withdrawn
+    assert "download=" not in co2.downloads.value
     co2.save_table(tmp_path / "x.csv")
     text = (tmp_path / "x.csv").read_text()
     assert "condensation" in text and "p [bar]" in text
@@ -252,3 +267,237 @@ def test_exports(co2, tmp_path):
     from phasepath.io import load_route
 
     assert load_route(path).corners() == pytest.approx(co2.route.corners())
+
+
+# -- new leg kinds, hazards, fractions ----------------------------------------------------------
+def test_valve_letdown_lands_on_the_eos_end_state_and_draws_its_true_path(co2):
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    click(co2, 20.0, 60.0)  # liquid CO2 at 20 degC, 60 bar
+    co2.leg_kind = "isenthalp"
+    click(co2, 0.0, 1.01325)  # the click sets only the pressure: 1 atm
+    (leg,) = co2.route.legs
+    assert leg.kind == "isenthalp" and leg.given == {"p": "1.013 bar"}
+    rep = co2.report
+    T_end, p_end = co2.route.corners()[1]
+    # the corner is where the EOS puts it, not where the mouse was (0 degC)
+    assert T_end == pytest.approx(194.686, abs=0.02)  # Span & Wagner 1996 (from memory)
+    assert co2.diagram.corners.x[1] == pytest.approx(T_end - 273.15, abs=1e-9)
+    end = rep.legs[0].end
+    assert end.phase == "solid+vapor"
+    h_in = CP.PropsSI("H", "T", 293.15, "P", 60e5, "CO2")
+    gas = CP.AbstractState("HEOS", "CO2")
+    gas.specify_phase(CP.iphase_gas)
+    gas.update(CP.PT_INPUTS, p_end, T_end)
+    x_expected = 1.0 - (gas.hmass() - h_in) / 573e3  # CRC, from memory
+    assert end.vapor_fraction == pytest.approx(x_expected, abs=0.01)
+    assert end.solid_fraction == pytest.approx(1.0 - end.vapor_fraction, abs=1e-9)
+    # the tables show the detail, the hazard flag and the fractions
+    assert [c.kind for c in rep.crossings] == ["vaporization", "deposition"]
+    html = co2.results.value
+    assert "bubble point: vapor starts to form" in html
+    assert html.count("⚠ solid-formation") == 1
+    assert f"<td class='num pp-xv'>{end.vapor_fraction:.3f}</td>" in html
+    assert f"<td class='num pp-xs'>{end.solid_fraction:.3f}</td>" in html
+    assert co2.cautions.value.count("Dry ice can plug lines") == 1
+    # the line follows the leg: through the bubble point and the triple point, and on the
+    # vapor-pressure curve (CoolProp, directly) while the state is liquid + vapor
+    xs, ys = np.array(co2.diagram.route_line.x), np.array(co2.diagram.route_line.y)
+    assert len(xs) > 20
+    T_b, p_b = rep.crossings[0].T - 273.15, rep.crossings[0].p / 1e5
+    assert np.any(np.isclose(xs, T_b, atol=1e-9) & np.isclose(ys, p_b, rtol=1e-12))
+    T_t = 216.592  # CO2 triple point, Span & Wagner 1996 (from memory)
+    wet = [
+        (T + 273.15, p * 1e5)
+        for T, p in zip(xs, ys, strict=True)
+        if T_t + 0.05 < T + 273.15 < rep.crossings[0].T - 0.01
+    ]
+    assert len(wet) > 10
+    for T, p in wet:
+        assert p == pytest.approx(CP.PropsSI("P", "T", T, "Q", 0, "CO2"), rel=1e-4)
+    # below the triple point it runs down the sublimation curve to the corner
+    assert xs[-1] == pytest.approx(T_end - 273.15) and ys[-1] == pytest.approx(p_end / 1e5)
+    assert np.all(np.diff(ys) <= 1e-12)  # a valve only lets the pressure fall
+
+
+def test_sealed_vessel_by_fill_density_flags_liquid_full(co2):
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    co2.start_T.value, co2.start_p.value = "-20", "600 kg/m3"  # a fill density, not a pressure
+    co2.start_btn.click()
+    assert co2.route.start.given == {"T": "-20 degC", "density": "600 kg/m3"}
+    assert co2.route.start.p == pytest.approx(
+        CP.PropsSI("P", "T", 253.15, "D", 600, "CO2"), rel=1e-6
+    )
+    co2.leg_kind = "isochore"
+    click(co2, 40.0, 3.0)  # the click sets only the temperature
+    assert co2.route.legs[0].given == {"T": "40.0 degC"}
+    T1, p1 = co2.route.corners()[1]
+    assert T1 == pytest.approx(313.15)
+    assert p1 == pytest.approx(CP.PropsSI("P", "T", 313.15, "D", 600, "CO2"), rel=1e-6)
+    full = co2.report.crossings[0]
+    assert full.from_phase == "liquid+vapor" and full.to_phase == "liquid"
+    assert full.T == pytest.approx(CP.PropsSI("T", "D", 600, "Q", 0, "CO2"), abs=1e-3)
+    kinds = [h.kind for h in co2.report.legs[0].hazards]
+    assert "liquid-full" in kinds and "sealed-pressure" in kinds
+    assert "liquid-full" in co2.results.value
+    assert "A liquid-full vessel can burst" in co2.cautions.value
+    # the drawn line passes the liquid-full point on the vapor-pressure curve
+    xs = np.array(co2.diagram.route_line.x)
+    assert np.any(np.isclose(xs, full.T - 273.15, atol=1e-9))
+    # the leg list: both fields of a constant-volume corner take a value; a pressure switches
+    # its target to the end pressure
+    row = co2.legs.rows[1]
+    assert not row.T.disabled and not row.p.disabled
+    row.p.value = "80"
+    assert co2.route.legs[0].given == {"p": "80 bar"}
+    assert co2.route.corners()[1][1] == pytest.approx(80e5, rel=1e-9)
+
+
+def test_event_legs_from_the_ends_control():
+    iapws = pytest.importorskip("iapws")
+    w = RoutePlanner("water", T_unit="degC", p_unit="kPa")
+    w.add_corner(20, 101.325)
+    w.leg_kind, w.until = "isobar", "fully vapor"
+    click(w, 60.0, 101.325)  # the event ends the leg, not the click
+    w.until = "5 K superheat"
+    click(w, 60.0, 101.325)
+    T_sat = iapws.IAPWS95(P=0.101325, x=1.0).T  # IAPWS-95, via iapws
+    (_, _), (T1, _), (T2, _) = w.route.corners()
+    assert T1 == pytest.approx(T_sat, abs=1e-3)
+    assert T2 == pytest.approx(T_sat + 5.0, abs=1e-3)
+    assert [leg.given for leg in w.route.legs] == [
+        {"until": "fully vapor"},
+        {"until": "5 K superheat"},
+    ]
+    assert "until fully vapor" in w.legs.rows[1].label.value
+    assert "<td class='pp-event'>fully vapor at T =" in w.results.value
+    assert w.report.legs[0].end.phase == "vapor"
+    # an event cannot end a constant-enthalpy leg: refused plainly, nothing drawn is lost
+    w.leg_kind = "isenthalp"
+    w.until = "fully vapor"  # ignored for kinds other than constant p and constant T
+    click(w, 60.0, 50.0)
+    assert w.route.legs[-1].kind == "isenthalp"
+
+
+def test_legs_typed_in_the_leg_list(co2):
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    co2.add_corner("20 degC", "10 bar")
+    add = co2.legs
+    add.add_kind.value, add.add_target.value = "isentrope", "80"  # bare: display unit (bar)
+    add.add_btn.click()
+    assert add.add_error.value == "" and add.add_target.value == ""
+    s0 = CP.PropsSI("S", "T", 293.15, "P", 10e5, "CO2")
+    assert co2.route.corners()[1][0] == pytest.approx(
+        CP.PropsSI("T", "P", 80e5, "S", s0, "CO2"), abs=1e-3
+    )
+    assert co2.report.legs[0].kind == "isentrope"
+    assert "constant s" in co2.results.value
+    # a typed event, and a bad target that is refused with the value named
+    add.add_kind.value, add.add_target.value = "isobar", "until 5 K superheat"
+    add.add_btn.click()
+    assert "superheat" in add.add_error.value  # 80 bar is above the critical pressure
+    assert len(co2.route.legs) == 1
+    add.add_kind.value, add.add_target.value = "isochore", "warm"
+    add.add_btn.click()
+    assert "warm" in add.add_error.value and add.add_target.value == "warm"
+    assert co2.add_leg("isenthalp", "20 bar") == ""
+    assert co2.route.legs[-1].kind == "isenthalp" and co2.route.legs[-1].p == pytest.approx(20e5)
+    # the constant-h corner's temperature comes from the EOS: its T field is read-only
+    assert co2.legs.rows[2].T.disabled and not co2.legs.rows[2].p.disabled
+
+
+def test_drag_moves_curved_corners_along_their_leg(co2):
+    click(co2, 20.0, 60.0)
+    co2.leg_kind = "isenthalp"
+    click(co2, 0.0, 10.0)
+    co2.leg_kind = "isobar"
+    click(co2, 30.0, 10.0)
+    T1 = co2.route.corners()[1][0]
+    drag(co2, 1, 50.0, 20.0)  # the mouse's temperature is not the leg's to take
+    (_, _), (T1b, p1b), (T2b, p2b) = co2.route.corners()
+    assert p1b == pytest.approx(20e5) and p2b == pytest.approx(20e5)  # the isobar followed
+    assert T1b != pytest.approx(T1) and T1b != pytest.approx(323.15)
+    assert co2.report == co2.route.copy().analyze()
+    assert co2.diagram.corners.x[1] == pytest.approx(T1b - 273.15)
+
+
+def test_spec_edits_keep_curved_and_event_legs_true():
+    from phasepath.widgets import _spec
+
+    spec = _spec.from_route(
+        pp.Route("CO2", T="20 degC", p="60 bar").isenthalp(p="10 bar").isobar(T="30 degC")
+    )
+    with pytest.raises(pp.errors.RouteError, match="isenthalp"):
+        _spec.move_corner(spec, 1, T_text="0 degC")  # typed: refused with the reason
+    moved = _spec.move_corner(spec, 2, "40 degC", "20 bar")  # the isobar's p is the valve's
+    assert moved["legs"] == [
+        {"kind": "isenthalp", "p": "20 bar"},
+        {"kind": "isobar", "T": "40 degC"},
+    ]
+    # deleting the start: the valve's two-phase end becomes the start, by its density
+    new = _spec.delete_corner(spec, 0)
+    assert set(new["start"]) == {"T", "density"}
+    assert _spec.corners(new)[0] == pytest.approx(_spec.corners(spec)[1], rel=1e-9)
+    ev = _spec.from_route(pp.Route("water", T="20 degC", p="1 atm").isobar(until="fully vapor"))
+    assert _spec.move_corner(ev, 1, T_text="120 degC")["legs"] == [
+        {"kind": "isobar", "T": "120 degC"}
+    ]
+    dragged = _spec.move_corner(ev, 1, "120 degC", "2 atm")  # a drag keeps the event
+    assert dragged["legs"] == [{"kind": "isobar", "until": "fully vapor"}]
+    assert dragged["start"]["p"] == "2 atm"
+
+
+# -- custom substances -------------------------------------------------------------------------
+def test_custom_substances_in_the_picker_and_drawn_without_triple_or_critical(co2):
+    # invented demo data: a solvent known only between 300 K and 350 K
+    short = pp.Substance.from_data(
+        "demo solvent A", vapor_points=[(300.0, 5e3), (320.0, 1.2e4), (350.0, 4e4)]
+    )
+    assert math.isnan(short.triple[0]) and math.isnan(short.critical[0])
+    co2.picker.value = "CO2"  # any refresh offers the substances built since
+    co2.clear()
+    assert "demo solvent A" in co2.picker.options
+    co2.picker.value = "demo solvent A"
+    assert co2.substance == "demo solvent A" and co2.message == ""
+    d = co2.diagram
+    assert len(d.triple.x) == 0 and len(d.critical.x) == 0  # no point drawn where none is given
+    assert len(d.curves) == 1 and len(d.curves[0].x) >= 2
+    T_lo, T_hi, p_lo, p_hi = d.window()
+    assert all(math.isfinite(v) for v in (T_lo, T_hi, p_lo, p_hi)) and T_lo <= 300.0 < 350.0 <= T_hi
+    assert co2.add_corner("310 K", "1 kPa") == ""  # vapor
+    assert co2.add_corner("310 K", "50 kPa", kind="isotherm") == ""
+    assert [c.kind for c in co2.report.crossings] == ["condensation"]
+
+
+def test_custom_curve_beyond_its_data_is_dotted():
+    bridged = pp.Substance.from_data(  # invented demo data, bridged to given end points
+        "demo solvent B",
+        triple=(180.0, None),
+        critical=(560.0, 4.5e6),
+        vapor_points=[(300.0, 5e3), (350.0, 4e4)],
+    )
+    planner = RoutePlanner(bridged, T_unit="K", p_unit="kPa")
+    lo, hi = bridged.vapor.T_valid
+    pieces = [
+        (line.line_style, float(min(line.x)), float(max(line.x))) for line in planner.diagram.curves
+    ]
+    assert ("solid", lo, hi) in [(s, pytest.approx(a), pytest.approx(b)) for s, a, b in pieces]
+    dotted = [(a, b) for s, a, b in pieces if s == "dotted"]
+    assert dotted == [
+        (pytest.approx(180.0), pytest.approx(lo)),
+        (pytest.approx(hi), pytest.approx(560.0)),
+    ]
+    assert "beyond the data" in planner.legend.value
+    planner.substance = "CO2"  # reference curves: no dotted piece, no key
+    assert all(line.line_style != "dotted" for line in planner.diagram.curves)
+    assert "beyond the data" not in planner.legend.value
+
+
+# -- speed-related behaviour (the figures are in benchmarks/run.py) ---------------------------
+def test_curve_marks_are_kept(co2):
+    curves = list(co2.diagram.curves)
+    marks = list(co2.diagram.figure.marks)
+    two_legs(co2)
+    drag(co2, 1, -40.0, 30.0)
+    assert co2.diagram.curves == curves and list(co2.diagram.figure.marks) == marks
+    co2.substance = "water"  # another substance reuses the same Lines
+    assert co2.diagram.curves[: len(curves)] == curves[: len(co2.diagram.curves)]

@@ -109,9 +109,7 @@ def text(value: float, dimension: str, unit: str) -> str:
     return f"{round(x, digits):.{max(digits, 0)}f} {unit}"
 
 
-def add_corner(
-    spec: Spec, T_text: str, p_text: str, kind: str, until: str | None = None
-) -> Spec:
+def add_corner(spec: Spec, T_text: str, p_text: str, kind: str, until: str | None = None) -> Spec:
     """A new last corner: the start if there is none, else a leg of ``kind`` whose target is the
     coordinate of the point that kind moves along (:data:`MOVES`); with ``until`` (an isobar or
     isotherm only) the leg ends on that event instead and the point is not used."""
@@ -154,7 +152,8 @@ def move_corner(
     straight leg holds fixed belongs to an earlier target (the last earlier leg that moves along
     it, or the start): that one changes, so the run of legs holding it shifts with it, and the
     legs after the corner follow through their own targets. A single typed value that no leg can
-    take (the temperature at the end of a constant-enthalpy leg) is refused with the reason.
+    take (the temperature at the end of a constant-enthalpy leg) is refused with the reason; a
+    drag then moves the corner along its own leg only.
     """
     new = copy.deepcopy(spec)
     if new["start"] is None:

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import html
 import math
+import re
 from collections.abc import Callable
 
 import ipywidgets as W
@@ -87,9 +88,7 @@ class LegList(W.VBox):
             value="isobar",
             layout=W.Layout(width="120px"),
         )
-        self.add_target = W.Text(
-            placeholder=_TARGET_HINT["isobar"], layout=W.Layout(width="188px")
-        )
+        self.add_target = W.Text(placeholder=_TARGET_HINT["isobar"], layout=W.Layout(width="188px"))
         self.add_btn = W.Button(
             description="add", tooltip="add this leg at the end", layout=W.Layout(width="52px")
         )
@@ -334,8 +333,7 @@ def _hazard_cell(item: object) -> str:
     tip = html.escape(" ".join(f"{h.kind}: {h.reason}." for h in hazards), quote=True)
     kinds = html.escape(", ".join(dict.fromkeys(h.kind for h in hazards)))
     return (
-        f"<td class='pp-hazards' title='{tip}' style='color:#9a3412;font-weight:600'>"
-        f"⚠ {kinds}</td>"
+        f"<td class='pp-hazards' title='{tip}' style='color:#9a3412;font-weight:600'>⚠ {kinds}</td>"
     )
 
 
@@ -346,11 +344,15 @@ def cautions_html(
     conditions the route reaches."""
     items: list[str] = []
     if report is not None:
+        seen: set[str] = set()
         for h in [h for leg in report.legs for h in getattr(leg, "hazards", ())] + [
             h for c in report.crossings for h in getattr(c, "hazards", ())
         ]:
-            if h.caution and h.caution not in items:
-                items.append(h.caution)
+            # deduplicated by sentence: the flags share their closing sentence
+            for sentence in re.split(r"(?<=\.)\s+", h.caution or ""):
+                if sentence and sentence not in seen:
+                    seen.add(sentence)
+                    items.append(sentence)
     p_max = max((p for _, p in corners), default=0.0)
     T_min = min((T for T, _ in corners), default=math.inf)
     T_max = max((T for T, _ in corners), default=-math.inf)

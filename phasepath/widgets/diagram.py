@@ -274,7 +274,9 @@ class PhaseDiagram:
         for mark, (name, T, p) in zip((self.triple, self.critical), self._special_si, strict=True):
             if math.isfinite(T) and math.isfinite(p):
                 x, y = to_display([T], [p], self.T_unit, self.p_unit)
-                tip = f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>{self.fmt_p(p)}</div>"
+                tip = (
+                    f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>{self.fmt_p(p)}</div>"
+                )
             else:  # a substance built from data without this point
                 x = y = np.array([], dtype=float)
                 tip = f"<div class='pp-tip'>no {name} given</div>"

@@ -161,7 +161,7 @@ class RoutePlanner(W.VBox):
             description="ends",
             tooltip="end the next constant-p or constant-T leg on an event",
             style={"description_width": "initial"},
-            layout=W.Layout(width="190px"),
+            layout=W.Layout(width="165px"),
         )
         self.mode_toggle = W.ToggleButtons(
             options=[("draw", "draw"), ("pan/zoom", "pan")],
@@ -200,9 +200,7 @@ class RoutePlanner(W.VBox):
             layout=W.Layout(width="160px"),
         )
         self.start_T = W.Text(placeholder="T, e.g. 25 degC", layout=W.Layout(width="120px"))
-        self.start_p = W.Text(
-            placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px")
-        )
+        self.start_p = W.Text(placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px"))
         self.start_btn = W.Button(description="place start", layout=W.Layout(width="110px"))
         self.start_msg = W.HTML()
         self.legs = LegList(self._edit_corner, self._delete_corner, self._typed_leg)

@@ -142,3 +142,63 @@ def test_click_two_legs_shows_crossings(page, voila_url, artifacts):
     # latent heats are present and positive
     assert all(_number(r[5]) > 0 for r in rows)
     assert re.search(r"2 leg\(s\), 2 crossing\(s\)", page.inner_text(".pp-planner"))
+
+
+def test_valve_letdown_draws_its_path_and_flags_dry_ice(page, voila_url, artifacts):
+    """Liquid CO2 at 20 degC, 60 bar let down through a valve (constant h) to 1 atm: the corner
+    lands at the sublimation temperature, the crossings table shows the bubble point and the
+    dry-ice deposition with its hazard flag, and the line follows the saturation curve.
+
+    Check value: the normal sublimation temperature of CO2, -78.46 degC (194.686 K; Span &
+    Wagner 1996; from memory), within the pressure of one pixel of the click (the sublimation
+    curve rises about 5.5 kPa/K there; common practice estimate)."""
+    page.goto(voila_url, wait_until="domcontentloaded", timeout=120_000)
+    page.wait_for_selector(".pp-diagram rect.plotarea_events", state="visible", timeout=120_000)
+    page.wait_for_selector(".pp-diagram path.line", state="attached", timeout=30_000)
+    page.wait_for_function(
+        "() => document.querySelectorAll('.pp-diagram g.axis g.tick text').length > 6",
+        timeout=30_000,
+    )
+    page.wait_for_timeout(300)
+    cal = page.evaluate(_CALIBRATE)
+    ax, bx = _fit([(t["px"], _number(t["text"])) for t in cal["x"]])
+    ay, by = _fit([(t["px"], math.log10(_number(t["text"]))) for t in cal["y"]])
+
+    def px_of(T_degC: float, p_bar: float) -> tuple[int, int]:
+        return round((T_degC - ax) / bx - 0.5), round((math.log10(p_bar) - ay) / by - 0.5)
+
+    x0, y0 = px_of(20.0, 60.0)
+    x1, y1 = px_of(-20.0, 1.01325)
+    page.mouse.click(x0, y0)
+    page.wait_for_function(
+        "() => document.querySelectorAll('.pp-legs input').length >= 2", timeout=30_000
+    )
+    page.get_by_role("button", name="constant h").click()
+    page.mouse.click(x1, y1)
+    page.wait_for_function(
+        "() => document.querySelectorAll('tr.pp-crossing').length >= 2", timeout=30_000
+    )
+    page.wait_for_timeout(250)
+    page.screenshot(path=str(artifacts / "planner-co2-valve-letdown.png"), full_page=True)
+
+    rows = _rows(page)
+    assert [r[1] for r in rows] == ["vaporization", "deposition"]
+    assert "bubble point" in rows[0][6]
+    assert "solid-formation" in rows[1][7]
+    p_click = 10 ** (ay + by * (y1 + 0.5))
+    legs = page.eval_on_selector_all(
+        "table.pp-legsum tr.pp-leg",
+        "rows => rows.map(r => Array.from(r.querySelectorAll('td')).map(td => td.textContent))",
+    )
+    assert legs[0][3] == "liquid → solid+vapor"
+    assert 0.0 < _number(legs[0][4]) < 1.0 and 0.0 < _number(legs[0][5]) < 1.0
+    T_end = _number(page.eval_on_selector_all(".pp-legs input", "els => els[2].value"))
+    dT = abs(p_click - 1.01325) * 1e5 / 5.5e3  # one pixel's pressure, in kelvin
+    assert T_end == pytest.approx(-78.46, abs=dT + 0.05)
+    # the line is drawn along the path (many points), not straight between the two corners
+    n = page.evaluate(
+        "() => Math.max(...Array.from(document.querySelectorAll('.pp-diagram path.line'))"
+        ".map(p => (p.getAttribute('d') || '').split('L').length))"
+    )
+    assert n > 40
+    assert "Dry ice can plug lines" in page.inner_text(".pp-planner")
