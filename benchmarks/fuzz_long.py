@@ -21,11 +21,24 @@ ROOT = Path(__file__).resolve().parents[1]
 
 
 def main() -> int:
-    env = {**os.environ, "PHASEPATH_FUZZ": "long",
-           "PYTHONPATH": str(ROOT) + os.pathsep + os.environ.get("PYTHONPATH", "")}
-    cmd = [sys.executable, "-m", "pytest", "-q", "-p", "no:cacheprovider",
-           "--hypothesis-show-statistics", "-W", "ignore::DeprecationWarning",
-           "tests/test_fuzz_routes.py", *sys.argv[1:]]
+    env = {
+        **os.environ,
+        "PHASEPATH_FUZZ": "long",
+        "PYTHONPATH": str(ROOT) + os.pathsep + os.environ.get("PYTHONPATH", ""),
+    }
+    cmd = [
+        sys.executable,
+        "-m",
+        "pytest",
+        "-q",
+        "-p",
+        "no:cacheprovider",
+        "--hypothesis-show-statistics",
+        "-W",
+        "ignore::DeprecationWarning",
+        "tests/test_fuzz_routes.py",
+        *sys.argv[1:],
+    ]
     t0 = time.perf_counter()
     status = subprocess.call(cmd, cwd=ROOT, env=env)
     print(f"long fuzz profile: exit status {status}, wall time {time.perf_counter() - t0:.0f} s")

@@ -140,41 +140,74 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
         walk = _walk(sub, leg, corners[i], prev_end)
         walks.append(walk)
         # the next leg starts from this leg's end state, on the side this leg arrives from
-        prev_end = leg.state if leg.state is not None else _single(
-            sub, StatePoint(leg.T, leg.p, "?"), walk.last)
+        prev_end = (
+            leg.state
+            if leg.state is not None
+            else _single(sub, StatePoint(leg.T, leg.p, "?"), walk.last)
+        )
     crossings: list[Crossing] = []
     legs: list[LegSummary] = []
     start_state = route.start.state
-    for i, (leg, walk) in enumerate(zip(route.legs, walks)):
+    for i, (leg, walk) in enumerate(zip(route.legs, walks, strict=False)):
         step = i + 1
         found: list[Crossing] = []
         if i == 0 and start_state is not None and state_key(start_state) != walk.first:
-            found.append(_crossing(sub, step, leg.kind, _corner(leg, start_state),
-                                   state_key(start_state), walk.first, "corner"))
-        found += [_crossing(sub, step, leg.kind, c, before, after, "")
-                  for c, before, after in walk.crossings]
+            found.append(
+                _crossing(
+                    sub,
+                    step,
+                    leg.kind,
+                    _corner(leg, start_state),
+                    state_key(start_state),
+                    walk.first,
+                    "corner",
+                )
+            )
+        found += [
+            _crossing(sub, step, leg.kind, c, before, after, "")
+            for c, before, after in walk.crossings
+        ]
         end_key = walk.last
         if i + 1 < len(walks) and walks[i + 1].first != end_key:
             T, p = leg.T, leg.p
             corner = _Candidate(T if leg.kind == "isobar" else p, T, p, "corner", "corner", 0)
-            found.append(_crossing(sub, step, leg.kind, corner, end_key, walks[i + 1].first,
-                                   "corner"))
+            found.append(
+                _crossing(sub, step, leg.kind, corner, end_key, walks[i + 1].first, "corner")
+            )
             end_key = walks[i + 1].first
         start = start_state if start_state is not None else _single(sub, walk.path[0], walk.first)
-        end = leg.state if (leg.state is not None and state_key(leg.state) == end_key) else (
-            _single(sub, walk.path[-1], end_key))
+        end = (
+            leg.state
+            if (leg.state is not None and state_key(leg.state) == end_key)
+            else (_single(sub, walk.path[-1], end_key))
+        )
         heat, work, note = leg_heat_work(leg.kind, start, end, basis)
         if leg.kind == "isenthalp" and end.p > start.p:
             note += "; pressure rises at constant enthalpy: no valve does this"
         hazards = leg_hazards(sub, leg.kind, list(walk.path), found, leg.event)
-        legs.append(LegSummary(step, leg.kind, start, end, heat, work, note, basis,
-                               tuple(walk.path), hazards, leg.event))
+        legs.append(
+            LegSummary(
+                step,
+                leg.kind,
+                start,
+                end,
+                heat,
+                work,
+                note,
+                basis,
+                tuple(walk.path),
+                hazards,
+                leg.event,
+            )
+        )
         crossings += found
         start_state = end
     notes = list(sub.notes)
     if route.elevation is not None:
         notes.append(_ambient_note(sub, route.elevation))
-    if any(b.T_valid is not None for b in sub.boundaries):  # curves built from data: flag extrapolation
+    if any(
+        b.T_valid is not None for b in sub.boundaries
+    ):  # curves built from data: flag extrapolation
         from .custom import range_warnings
 
         notes += range_warnings(sub, route.corners(), crossings)
@@ -191,37 +224,63 @@ class _Walk:
     path: tuple[StatePoint, ...]
 
 
-def _walk(sub: Substance, leg: Leg, corner: tuple[float, float], prev_end: StatePoint | None) -> _Walk:
+def _walk(
+    sub: Substance, leg: Leg, corner: tuple[float, float], prev_end: StatePoint | None
+) -> _Walk:
     T0, p0 = corner
     if leg.kind in CURVED_KINDS:
         return _walk_curved(sub, leg, T0, p0, prev_end)
     tr = _trace(sub, leg.kind, T0, p0, leg.T, leg.p)
-    found = [(c, tr.phases[k], tr.phases[k + 1])
-             for k, c in enumerate(tr.candidates) if tr.phases[k][0] != tr.phases[k + 1][0]]
+    found = [
+        (c, tr.phases[k], tr.phases[k + 1])
+        for k, c in enumerate(tr.candidates)
+        if tr.phases[k][0] != tr.phases[k + 1][0]
+    ]
     last = tr.phases[-1]
     if leg.state is not None and state_key(leg.state) != last:
         # an event leg ends after its transition ("until fully vapor")
         x = leg.T if leg.kind == "isobar" else leg.p
-        found.append((_Candidate(x, leg.T, leg.p, _boundary_name(
-            crossing_kind(last[0], leg.state.phase)), "event", 0), last, state_key(leg.state)))
+        found.append(
+            (
+                _Candidate(
+                    x,
+                    leg.T,
+                    leg.p,
+                    _boundary_name(crossing_kind(last[0], leg.state.phase)),
+                    "event",
+                    0,
+                ),
+                last,
+                state_key(leg.state),
+            )
+        )
         last = state_key(leg.state)
-    path = (StatePoint(T0, p0, *tr.phases[0]),
-            *(StatePoint(c.T, c.p, *tr.phases[k + 1]) for k, c in enumerate(tr.candidates)),
-            StatePoint(leg.T, leg.p, *last))
+    path = (
+        StatePoint(T0, p0, *tr.phases[0]),
+        *(StatePoint(c.T, c.p, *tr.phases[k + 1]) for k, c in enumerate(tr.candidates)),
+        StatePoint(leg.T, leg.p, *last),
+    )
     return _Walk(tr.phases[0], last, tuple(found), path)
 
 
-def _walk_curved(sub: Substance, leg: Leg, T0: float, p0: float, prev_end: StatePoint | None) -> _Walk:
+def _walk_curved(
+    sub: Substance, leg: Leg, T0: float, p0: float, prev_end: StatePoint | None
+) -> _Walk:
     from .route import _processes
 
     pr = _processes()
     assert leg.state is not None
-    start = prev_end if prev_end is not None else _single(sub, StatePoint(T0, p0, "?"), sub.classify(T0, p0))
+    start = (
+        prev_end
+        if prev_end is not None
+        else _single(sub, StatePoint(T0, p0, "?"), sub.classify(T0, p0))
+    )
     if leg.kind == "isochore":
         v = 1.0 / (start.rho or leg.state.rho or 1.0)
 
         def state_at(x: float) -> StatePoint:
             return pr.flash_Tv(sub, x, v)
+
         x0, x1, geometric = T0, leg.T, False
     else:
         prop = "h" if leg.kind == "isenthalp" else "s"
@@ -230,6 +289,7 @@ def _walk_curved(sub: Substance, leg: Leg, T0: float, p0: float, prev_end: State
 
         def state_at(x: float) -> StatePoint:
             return pr.flash_p(sub, x, prop, value)
+
         x0, x1, geometric = p0, leg.p, True
     states, events = pr.trace(state_at, x0, x1, geometric, first=start)
     found = []
@@ -242,8 +302,11 @@ def _walk_curved(sub: Substance, leg: Leg, T0: float, p0: float, prev_end: State
         if "+" in before.phase and "+" in after.phase:
             label = "triple point"
         elif kind.startswith("supercritical"):
-            label = "critical isobar" if on.T > T_c and abs(on.p / p_c - 1) < 1e-6 else (
-                "critical isotherm")
+            label = (
+                "critical isobar"
+                if on.T > T_c and abs(on.p / p_c - 1) < 1e-6
+                else ("critical isotherm")
+            )
         cand = _Candidate(x, on.T, on.p, label, "bisection", count)
         found.append((cand, state_key(before), state_key(after)))
     return _Walk(state_key(states[0]), state_key(states[-1]), tuple(found), tuple(states))
@@ -258,24 +321,43 @@ def _single(sub: Substance, where: StatePoint, key: tuple[str, str | None]) -> S
 
 
 def _corner(leg: Leg, state: StatePoint) -> _Candidate:
-    return _Candidate(state.T if leg.kind == "isobar" else state.p, state.T, state.p,
-                      "corner", "corner", 0)
+    return _Candidate(
+        state.T if leg.kind == "isobar" else state.p, state.T, state.p, "corner", "corner", 0
+    )
 
 
 @lru_cache(maxsize=4096)  # a pure function of its arguments: unchanged legs reuse their records
-def _crossing(sub: Substance, step: int, leg_kind: str, cand: _Candidate,
-              before: tuple[str, str | None], after: tuple[str, str | None],
-              where: str) -> Crossing:
+def _crossing(
+    sub: Substance,
+    step: int,
+    leg_kind: str,
+    cand: _Candidate,
+    before: tuple[str, str | None],
+    after: tuple[str, str | None],
+    where: str,
+) -> Crossing:
     from .processes import describe_change
 
     kind = crossing_kind(before[0], after[0])
     boundary = cand.boundary if where != "corner" else _boundary_name(kind)
     L, model, note = latent_heat(sub, kind, cand.T, cand.p, before, after)
     c = Crossing(
-        step=step, kind=kind, from_phase=before[0], to_phase=after[0], T=cand.T, p=cand.p,
-        latent_heat=L, latent_heat_model=model, latent_heat_note=note, boundary=boundary,
-        method=cand.method, evaluations=cand.evaluations, from_form=before[1],
-        to_form=after[1], at_corner=where == "corner", detail=describe_change(before[0], after[0]),
+        step=step,
+        kind=kind,
+        from_phase=before[0],
+        to_phase=after[0],
+        T=cand.T,
+        p=cand.p,
+        latent_heat=L,
+        latent_heat_model=model,
+        latent_heat_note=note,
+        boundary=boundary,
+        method=cand.method,
+        evaluations=cand.evaluations,
+        from_form=before[1],
+        to_form=after[1],
+        at_corner=where == "corner",
+        detail=describe_change(before[0], after[0]),
     )
     hz = crossing_hazards(sub, leg_kind, c)
     return replace(c, hazards=hz) if hz else c
@@ -285,7 +367,10 @@ def _ambient_note(sub: Substance, elevation: float) -> str:
     from .atmosphere import ambient_pressure
 
     p = ambient_pressure(elevation)
-    text = f"Site elevation {elevation:g} m: ambient pressure {p:.6g} Pa (U.S. Standard Atmosphere 1976)"
+    text = (
+        f"Site elevation {elevation:g} m: ambient pressure {p:.6g} Pa "
+        "(U.S. Standard Atmosphere 1976)"
+    )
     if sub.vapor is not None and sub.triple[1] <= p <= sub.critical[1]:
         T_b = sub.vapor.temperatures_at(p)[0][0]
         text += f"; {sub.name} boils there at {T_b:.6g} K ({T_b - 273.15:.2f} °C)"
@@ -293,9 +378,14 @@ def _ambient_note(sub: Substance, elevation: float) -> str:
 
 
 def _boundary_name(kind: str) -> str:
-    return {"melting": "melting", "freezing": "melting", "vaporization": "vapor pressure",
-            "condensation": "vapor pressure", "sublimation": "sublimation",
-            "deposition": "sublimation"}.get(kind, "critical point region")
+    return {
+        "melting": "melting",
+        "freezing": "melting",
+        "vaporization": "vapor pressure",
+        "condensation": "vapor pressure",
+        "sublimation": "sublimation",
+        "deposition": "sublimation",
+    }.get(kind, "critical point region")
 
 
 @lru_cache(maxsize=4096)
@@ -310,14 +400,16 @@ def _trace(sub: Substance, kind: str, T0: float, p0: float, T1: float, p1: float
     cands = _inside(cands, x0, x1)
     xs = [x0] + [c.x for c in cands] + [x1]
     phases = []
-    for a, b in zip(xs[:-1], xs[1:]):
+    for a, b in zip(xs[:-1], xs[1:], strict=False):
         mid = 0.5 * (a + b) if kind == "isobar" else _pmid(a, b)
         T, p = (mid, p0) if kind == "isobar" else (T0, mid)
         try:
             phases.append(sub.classify(T, p))
         except PhasePathError as exc:
-            raise type(exc)(f"{kind} from (T = {T0:.6g} K, p = {p0:.6g} Pa) to "
-                            f"(T = {T1:.6g} K, p = {p1:.6g} Pa) passes through {exc}") from None
+            raise type(exc)(
+                f"{kind} from (T = {T0:.6g} K, p = {p0:.6g} Pa) to "
+                f"(T = {T1:.6g} K, p = {p1:.6g} Pa) passes through {exc}"
+            ) from None
     return _Trace(tuple(cands), tuple(phases))
 
 
@@ -328,8 +420,13 @@ def _pmid(a: float, b: float) -> float:
 def _inside(cands: list[_Candidate], x0: float, x1: float) -> list[_Candidate]:
     """Candidates strictly inside the leg, in leg order, merged where they coincide."""
     lo, hi = min(x0, x1), max(x0, x1)
-    keep = [c for c in cands
-            if lo < c.x < hi and abs(c.x - x0) > _END_TOL * abs(x0) and abs(c.x - x1) > _END_TOL * abs(x1)]
+    keep = [
+        c
+        for c in cands
+        if lo < c.x < hi
+        and abs(c.x - x0) > _END_TOL * abs(x0)
+        and abs(c.x - x1) > _END_TOL * abs(x1)
+    ]
     keep.sort(key=lambda c: c.x, reverse=x1 < x0)
     out: list[_Candidate] = []
     for c in keep:
@@ -339,8 +436,14 @@ def _inside(cands: list[_Candidate], x0: float, x1: float) -> list[_Candidate]:
                 out[-1] = c
             elif c.method != "junction" and c.boundary != prev.boundary:
                 # two branches meet here: a triple point
-                out[-1] = _Candidate(prev.x, prev.T, prev.p, "triple point", prev.method,
-                                     prev.evaluations + c.evaluations)
+                out[-1] = _Candidate(
+                    prev.x,
+                    prev.T,
+                    prev.p,
+                    "triple point",
+                    prev.method,
+                    prev.evaluations + c.evaluations,
+                )
             continue
         out.append(c)
     return out

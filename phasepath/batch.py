@@ -75,10 +75,13 @@ def analyze_many(
         or ``address`` is given without Dask installed.
     """
     items = list(routes)
-    if workers is not None and (isinstance(workers, bool) or not isinstance(workers, int)
-                                or workers < 1):
-        raise BatchError(f"workers = {workers!r} is not a positive whole number of processes "
-                         "(None or 1 analyses in this process)")
+    if workers is not None and (
+        isinstance(workers, bool) or not isinstance(workers, int) or workers < 1
+    ):
+        raise BatchError(
+            f"workers = {workers!r} is not a positive whole number of processes "
+            "(None or 1 analyses in this process)"
+        )
     payloads = [_payload(r) for r in items]
     bar = _progress_bar(len(items), progress)
     try:
@@ -130,8 +133,10 @@ def _run_dask(address: str, payloads: list[Any], bar: Any) -> list[Any]:
             "use processes on this machine"
         ) from None
     if any(not _portable(p) for p in payloads):
-        raise BatchError("a route on a substance that cannot be rebuilt from its name cannot "
-                         "be sent to a Dask cluster: analyse it without address")
+        raise BatchError(
+            "a route on a substance that cannot be rebuilt from its name cannot "
+            "be sent to a Dask cluster: analyse it without address"
+        )
     try:
         client = Client(address)
     except Exception as exc:  # connection failures come in many library-specific types
@@ -139,8 +144,9 @@ def _run_dask(address: str, payloads: list[Any], bar: Any) -> list[Any]:
     try:
         n = max(1, len(client.scheduler_info().get("workers", {})))
         chunks = _chunks(list(range(len(payloads))), n)
-        futures = client.map(_analyze_chunk, [[payloads[i] for i in idx] for idx in chunks],
-                             pure=False)
+        futures = client.map(
+            _analyze_chunk, [[payloads[i] for i in idx] for idx in chunks], pure=False
+        )
         where = {f.key: idx for f, idx in zip(futures, chunks, strict=True)}
         results: list[Any] = [None] * len(payloads)
         for fut in as_completed(futures):
@@ -155,7 +161,7 @@ def _run_dask(address: str, payloads: list[Any], bar: Any) -> list[Any]:
 
 def _chunks(indices: list[int], workers: int) -> list[list[int]]:
     size = max(_MIN_CHUNK, math.ceil(len(indices) / (workers * _TASKS_PER_WORKER)))
-    return [indices[k:k + size] for k in range(0, len(indices), size)]
+    return [indices[k : k + size] for k in range(0, len(indices), size)]
 
 
 # -- one route ------------------------------------------------------------------------------------
@@ -190,8 +196,9 @@ def _analyze_one(payload: Any) -> tuple[str, Any]:
         elif isinstance(payload, dict):
             route = Route.from_dict(payload)
         else:
-            raise BatchError(f"{payload!r} is not a route: give Route objects or Route.to_dict() "
-                             "data")
+            raise BatchError(
+                f"{payload!r} is not a route: give Route objects or Route.to_dict() data"
+            )
         report = analyze(route)
     except PhasePathError as exc:
         return "error", (type(exc).__name__, str(exc))
@@ -217,8 +224,11 @@ def _assemble(items: list[Any], results: list[Any]) -> list[Report]:
     if failures:
         lines = []
         for i, exc in failures.items():
-            title = items[i].title if isinstance(items[i], Route) else (
-                items[i].get("title", "") if isinstance(items[i], dict) else "")
+            title = (
+                items[i].title
+                if isinstance(items[i], Route)
+                else (items[i].get("title", "") if isinstance(items[i], dict) else "")
+            )
             name = f"route {i}" + (f" ({title!r})" if title else "")
             lines.append(f"{name}: {type(exc).__name__}: {exc}")
         err = BatchError(f"{len(failures)} of {len(items)} routes failed:\n" + "\n".join(lines))

@@ -88,7 +88,9 @@ class Boundary:
             self._sample = (T, p)
         return self._sample
 
-    def curve(self, p_floor: float = 0.0, p_ceiling: float = math.inf) -> tuple[np.ndarray, np.ndarray]:
+    def curve(
+        self, p_floor: float = 0.0, p_ceiling: float = math.inf
+    ) -> tuple[np.ndarray, np.ndarray]:
         """(T, p) arrays for drawing, clipped to p_floor <= p <= p_ceiling."""
         T, p = self.sample()
         keep = (p >= p_floor) & (p <= p_ceiling)
@@ -126,8 +128,9 @@ class Boundary:
             if a == 0.0:
                 out.append((float(T[i]), "node", 1))
             elif b != 0.0:
-                out.append(self._refine(p, float(T[i]), float(T[i + 1]), float(pp[i]),
-                                        float(pp[i + 1])))
+                out.append(
+                    self._refine(p, float(T[i]), float(T[i + 1]), float(pp[i]), float(pp[i + 1]))
+                )
         if f[-1] == 0.0:
             out.append((float(T[-1]), "node", 1))
         return out
@@ -140,8 +143,9 @@ class Boundary:
             self._shape = (float(pp.min()), float(pp.max()), bool(np.all(d > 0) or np.all(d < 0)))
         return self._shape
 
-    def _refine(self, p: float, Ta: float, Tb: float, pa: float, pb: float
-                ) -> tuple[float, str, int]:
+    def _refine(
+        self, p: float, Ta: float, Tb: float, pa: float, pb: float
+    ) -> tuple[float, str, int]:
         """The root of p_of_T(T) = p between two sample nodes whose pressures straddle p."""
         count = 0
 

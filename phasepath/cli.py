@@ -28,8 +28,15 @@ from .io import MAX_BYTES, dumps_route, load_route
 from .report import UNIT_LABELS, Report
 from .units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, convert
 
-__all__ = ["main", "format_report", "report_cautions", "results_document", "compare_crossings",
-           "RESULTS_FORMAT", "RESULTS_VERSION"]
+__all__ = [
+    "main",
+    "format_report",
+    "report_cautions",
+    "results_document",
+    "compare_crossings",
+    "RESULTS_FORMAT",
+    "RESULTS_VERSION",
+]
 
 #: The ``format`` field of a results file written by ``analyze --format json``.
 RESULTS_FORMAT = "phasepath results"
@@ -76,54 +83,84 @@ def _fail(msg: str) -> None:
 def _parser() -> argparse.ArgumentParser:
     from . import __version__
 
-    units_help = ("display units, comma-separated, any order: one of each of "
-                  f"{'/'.join(TEMPERATURE_UNITS)}, {'/'.join(PRESSURE_UNITS)}, "
-                  f"{'/'.join(ENERGY_UNITS)} (default {','.join(_DEFAULT_UNITS)})")
+    units_help = (
+        "display units, comma-separated, any order: one of each of "
+        f"{'/'.join(TEMPERATURE_UNITS)}, {'/'.join(PRESSURE_UNITS)}, "
+        f"{'/'.join(ENERGY_UNITS)} (default {','.join(_DEFAULT_UNITS)})"
+    )
     p = argparse.ArgumentParser(
         prog="phasepath",
         description="Plan compression and heating routes of a pure substance on its phase "
-                    "diagram: every phase-boundary crossing, its T and p, and the heat per leg.")
+        "diagram: every phase-boundary crossing, its T and p, and the heat per leg.",
+    )
     p.add_argument("--version", action="version", version=f"phasepath {__version__}")
     sub = p.add_subparsers(dest="command", metavar="COMMAND")
 
-    a = sub.add_parser("analyze", help="analyse a route file and print the results",
-                       description="Analyse a route file and print its crossings and legs.")
+    a = sub.add_parser(
+        "analyze",
+        help="analyse a route file and print the results",
+        description="Analyse a route file and print its crossings and legs.",
+    )
     a.add_argument("route", metavar="ROUTE_FILE", help="route file (.json, .yaml, .yml)")
-    a.add_argument("--format", choices=("table", "csv", "json"), default="table",
-                   help="table (for people, default), csv (crossings, or legs with --legs) or "
-                        "json (a results file for 'phasepath check', SI units)")
+    a.add_argument(
+        "--format",
+        choices=("table", "csv", "json"),
+        default="table",
+        help="table (for people, default), csv (crossings, or legs with --legs) or "
+        "json (a results file for 'phasepath check', SI units)",
+    )
     a.add_argument("--units", default=None, help=units_help)
-    a.add_argument("--legs", action="store_true", help="csv: the per-leg table instead of the "
-                                                       "crossings")
+    a.add_argument(
+        "--legs", action="store_true", help="csv: the per-leg table instead of the crossings"
+    )
     a.add_argument("-o", "--output", default=None, help="write to FILE instead of the screen")
     a.set_defaults(run=_analyze)
 
-    c = sub.add_parser("check", help="re-analyse a route and compare with saved results",
-                       description="Re-analyse ROUTE_FILE and compare its crossings with "
-                                   "EXPECTED_FILE (written by 'phasepath analyze --format "
-                                   "json'). Exit status 1 if a crossing moved beyond the "
-                                   "tolerances, appeared or disappeared.")
+    c = sub.add_parser(
+        "check",
+        help="re-analyse a route and compare with saved results",
+        description="Re-analyse ROUTE_FILE and compare its crossings with "
+        "EXPECTED_FILE (written by 'phasepath analyze --format "
+        "json'). Exit status 1 if a crossing moved beyond the "
+        "tolerances, appeared or disappeared.",
+    )
     c.add_argument("route", metavar="ROUTE_FILE")
     c.add_argument("expected", metavar="EXPECTED_FILE")
-    c.add_argument("--tol-T", type=_positive, default=_TOL_T, metavar="KELVIN",
-                   help=f"largest allowed change of a crossing temperature [K] "
-                        f"(default {_TOL_T})")
-    c.add_argument("--tol-p", type=_positive, default=_TOL_P, metavar="REL",
-                   help=f"largest allowed relative change of a crossing pressure "
-                        f"(default {_TOL_P:g})")
-    c.add_argument("--tol-latent", type=_positive, default=_TOL_L, metavar="REL",
-                   help=f"largest allowed relative change of a latent heat "
-                        f"(default {_TOL_L:g})")
+    c.add_argument(
+        "--tol-T",
+        type=_positive,
+        default=_TOL_T,
+        metavar="KELVIN",
+        help=f"largest allowed change of a crossing temperature [K] (default {_TOL_T})",
+    )
+    c.add_argument(
+        "--tol-p",
+        type=_positive,
+        default=_TOL_P,
+        metavar="REL",
+        help=f"largest allowed relative change of a crossing pressure (default {_TOL_P:g})",
+    )
+    c.add_argument(
+        "--tol-latent",
+        type=_positive,
+        default=_TOL_L,
+        metavar="REL",
+        help=f"largest allowed relative change of a latent heat (default {_TOL_L:g})",
+    )
     c.add_argument("--units", default=None, help=units_help)
     c.set_defaults(run=_check)
 
-    d = sub.add_parser("diagram", help="draw the phase diagram (and a route) to SVG or PNG",
-                       description="Draw the phase diagram of SUBSTANCE, with a route if one is "
-                                   "given, to an SVG or PNG file (needs matplotlib: "
-                                   "pip install 'phasepath[plot]').")
+    d = sub.add_parser(
+        "diagram",
+        help="draw the phase diagram (and a route) to SVG or PNG",
+        description="Draw the phase diagram of SUBSTANCE, with a route if one is "
+        "given, to an SVG or PNG file (needs matplotlib: "
+        "pip install 'phasepath[plot]').",
+    )
     d.add_argument("substance", metavar="SUBSTANCE")
-    d.add_argument("-o", "--output", required=True, metavar="FILE",
-                   help="output file, .svg or .png")
+    d.add_argument(
+        "-o", "--output", required=True, metavar="FILE", help="output file, .svg or .png"
+    )
     d.add_argument("--route", default=None, metavar="ROUTE_FILE", help="route file to draw")
     d.add_argument("--units", default=None, help="display units for the axes, e.g. degC,bar")
     d.add_argument("--title", default=None, help="figure title (default: the route's title)")
@@ -166,7 +203,8 @@ def _units(text: str | None) -> tuple[str, str, str]:
         else:
             raise UnitError(
                 f"--units {text!r}: unknown display unit {token!r}; choose from "
-                f"{', '.join(TEMPERATURE_UNITS + PRESSURE_UNITS + ENERGY_UNITS)}")
+                f"{', '.join(TEMPERATURE_UNITS + PRESSURE_UNITS + ENERGY_UNITS)}"
+            )
     return T_u, p_u, e_u
 
 
@@ -176,8 +214,10 @@ def _analyze(args: argparse.Namespace) -> int:
     report = route.analyze()
     units = _units(args.units)
     if args.format == "json":
-        text = json.dumps(results_document(report), indent=2, ensure_ascii=False,
-                          allow_nan=False) + "\n"
+        text = (
+            json.dumps(results_document(report), indent=2, ensure_ascii=False, allow_nan=False)
+            + "\n"
+        )
     elif args.format == "csv":
         text = _csv(report, units, legs=args.legs)
     else:
@@ -221,59 +261,101 @@ def _phase(phase: str, form: str | None) -> str:
     return f"{phase} (ice {form})" if form else phase
 
 
-def _rows_crossings(report: Report, T_u: str, p_u: str,
-                    e_u: str) -> tuple[list[str], list[list[Any]]]:
-    head = ["leg", "kind", "from", "to", f"T [{T_u}]", f"p [{p_u}]", f"latent heat [{e_u}]",
-            "boundary", "hazards"]
+def _rows_crossings(
+    report: Report, T_u: str, p_u: str, e_u: str
+) -> tuple[list[str], list[list[Any]]]:
+    head = [
+        "leg",
+        "kind",
+        "from",
+        "to",
+        f"T [{T_u}]",
+        f"p [{p_u}]",
+        f"latent heat [{e_u}]",
+        "boundary",
+        "hazards",
+    ]
     rows = []
     for c in report.crossings:
-        rows.append([c.step, c.kind, _phase(c.from_phase, c.from_form),
-                     _phase(c.to_phase, c.to_form), convert(c.T, "K", T_u, "temperature"),
-                     convert(c.p, "Pa", p_u, "pressure"),
-                     None if c.latent_heat is None else convert(c.latent_heat, "J/kg", e_u,
-                                                                "energy"),
-                     c.boundary, "; ".join(h.kind for h in getattr(c, "hazards", ()))])
+        rows.append(
+            [
+                c.step,
+                c.kind,
+                _phase(c.from_phase, c.from_form),
+                _phase(c.to_phase, c.to_form),
+                convert(c.T, "K", T_u, "temperature"),
+                convert(c.p, "Pa", p_u, "pressure"),
+                None if c.latent_heat is None else convert(c.latent_heat, "J/kg", e_u, "energy"),
+                c.boundary,
+                "; ".join(h.kind for h in getattr(c, "hazards", ())),
+            ]
+        )
     return head, rows
 
 
-def _rows_legs(report: Report, T_u: str, p_u: str,
-               e_u: str) -> tuple[list[str], list[list[Any]]]:
-    head = ["leg", "kind", f"T start [{T_u}]", f"p start [{p_u}]", f"T end [{T_u}]",
-            f"p end [{p_u}]", "phase start", "phase end", f"heat [{e_u}]", f"work [{e_u}]",
-            "note", "hazards"]
+def _rows_legs(report: Report, T_u: str, p_u: str, e_u: str) -> tuple[list[str], list[list[Any]]]:
+    head = [
+        "leg",
+        "kind",
+        f"T start [{T_u}]",
+        f"p start [{p_u}]",
+        f"T end [{T_u}]",
+        f"p end [{p_u}]",
+        "phase start",
+        "phase end",
+        f"heat [{e_u}]",
+        f"work [{e_u}]",
+        "note",
+        "hazards",
+    ]
 
     def e(v: float | None) -> float | None:
         return None if v is None else convert(v, "J/kg", e_u, "energy")
 
     rows = []
     for leg in report.legs:
-        rows.append([leg.step, leg.kind, convert(leg.start.T, "K", T_u, "temperature"),
-                     convert(leg.start.p, "Pa", p_u, "pressure"),
-                     convert(leg.end.T, "K", T_u, "temperature"),
-                     convert(leg.end.p, "Pa", p_u, "pressure"),
-                     _phase(leg.start.phase, leg.start.form), _phase(leg.end.phase, leg.end.form),
-                     e(leg.heat), e(leg.work), leg.note,
-                     "; ".join(h.kind for h in getattr(leg, "hazards", ()))])
+        rows.append(
+            [
+                leg.step,
+                leg.kind,
+                convert(leg.start.T, "K", T_u, "temperature"),
+                convert(leg.start.p, "Pa", p_u, "pressure"),
+                convert(leg.end.T, "K", T_u, "temperature"),
+                convert(leg.end.p, "Pa", p_u, "pressure"),
+                _phase(leg.start.phase, leg.start.form),
+                _phase(leg.end.phase, leg.end.form),
+                e(leg.heat),
+                e(leg.work),
+                leg.note,
+                "; ".join(h.kind for h in getattr(leg, "hazards", ())),
+            ]
+        )
     return head, rows
 
 
 def _text_table(head: list[str], rows: list[list[Any]]) -> str:
-    cells = [[_num(v) if isinstance(v, float) or v is None else str(v) for v in row]
-             for row in rows]
-    numeric = [all(isinstance(r[i], (int, float)) or r[i] is None for r in rows) and bool(rows)
-               for i in range(len(head))]
+    cells = [
+        [_num(v) if isinstance(v, float) or v is None else str(v) for v in row] for row in rows
+    ]
+    numeric = [
+        all(isinstance(r[i], (int, float)) or r[i] is None for r in rows) and bool(rows)
+        for i in range(len(head))
+    ]
     widths = [max([len(h)] + [len(r[i]) for r in cells]) for i, h in enumerate(head)]
 
     def line(values: list[str]) -> str:
-        out = [v.rjust(w) if num else v.ljust(w)
-               for v, w, num in zip(values, widths, numeric, strict=True)]
+        out = [
+            v.rjust(w) if num else v.ljust(w)
+            for v, w, num in zip(values, widths, numeric, strict=True)
+        ]
         return "  ".join(out).rstrip()
 
     return "\n".join([line(head), line(["-" * w for w in widths])] + [line(r) for r in cells])
 
 
-def format_report(report: Report, T_unit: str = "degC", p_unit: str = "bar",
-                  energy_unit: str = "kJ/kg") -> str:
+def format_report(
+    report: Report, T_unit: str = "degC", p_unit: str = "bar", energy_unit: str = "kJ/kg"
+) -> str:
     """The results as fixed-format text: title, crossings, legs and notes (6 significant digits).
 
     The same text on every machine for the same results, so it can be kept under regression.
@@ -285,14 +367,22 @@ def format_report(report: Report, T_unit: str = "degC", p_unit: str = "bar",
     out.append("")
     out.append("Crossings")
     head, rows = _rows_crossings(report, T_unit, p_unit, energy_unit)
-    head = [h.replace(f"[{T_unit}]", f"[{T_u}]").replace(f"[{p_unit}]", f"[{p_u}]")
-            .replace(f"[{energy_unit}]", f"[{e_u}]") for h in head]
+    head = [
+        h.replace(f"[{T_unit}]", f"[{T_u}]")
+        .replace(f"[{p_unit}]", f"[{p_u}]")
+        .replace(f"[{energy_unit}]", f"[{e_u}]")
+        for h in head
+    ]
     out.append(_text_table(head, rows) if rows else "(no phase boundary is crossed)")
     out.append("")
     out.append("Legs")
     head, rows = _rows_legs(report, T_unit, p_unit, energy_unit)
-    head = [h.replace(f"[{T_unit}]", f"[{T_u}]").replace(f"[{p_unit}]", f"[{p_u}]")
-            .replace(f"[{energy_unit}]", f"[{e_u}]") for h in head]
+    head = [
+        h.replace(f"[{T_unit}]", f"[{T_u}]")
+        .replace(f"[{p_unit}]", f"[{p_u}]")
+        .replace(f"[{energy_unit}]", f"[{e_u}]")
+        for h in head
+    ]
     out.append(_text_table(head, rows))
     cautions = report_cautions(report)
     if cautions:
@@ -348,19 +438,24 @@ def _read_results(path: str) -> dict[str, Any]:
     except UnicodeDecodeError:
         raise _UsageError(f"{path}: not UTF-8 text") from None
     if not isinstance(data, dict) or data.get("format") != RESULTS_FORMAT:
-        raise _UsageError(f"{path}: not a phasepath results file (write one with "
-                          f"'phasepath analyze ROUTE_FILE --format json -o {path}')")
+        raise _UsageError(
+            f"{path}: not a phasepath results file (write one with "
+            f"'phasepath analyze ROUTE_FILE --format json -o {path}')"
+        )
     if data.get("version") != RESULTS_VERSION:
-        raise _UsageError(f"{path}: results file version {data.get('version')!r}; this "
-                          f"phasepath reads version {RESULTS_VERSION}")
+        raise _UsageError(
+            f"{path}: results file version {data.get('version')!r}; this "
+            f"phasepath reads version {RESULTS_VERSION}"
+        )
     crossings = data.get("crossings")
     if not isinstance(crossings, list):
         raise _UsageError(f"{path}: field crossings: expected a list")
     need = ("step", "kind", "from_phase", "to_phase", "T", "p")
     for i, c in enumerate(crossings):
         if not isinstance(c, dict) or any(k not in c for k in need):
-            raise _UsageError(f"{path}: field crossings[{i}]: expected a mapping with "
-                              f"{', '.join(need)}")
+            raise _UsageError(
+                f"{path}: field crossings[{i}]: expected a mapping with {', '.join(need)}"
+            )
         for k in ("T", "p"):
             if not isinstance(c[k], (int, float)) or not math.isfinite(c[k]):
                 raise _UsageError(f"{path}: field crossings[{i}].{k}: {c[k]!r} is not a number")
@@ -368,8 +463,12 @@ def _read_results(path: str) -> dict[str, Any]:
 
 
 def _key(c: dict[str, Any]) -> tuple[Any, ...]:
-    return (int(c["step"]), c["kind"], _phase(c["from_phase"], c.get("from_form")),
-            _phase(c["to_phase"], c.get("to_form")))
+    return (
+        int(c["step"]),
+        c["kind"],
+        _phase(c["from_phase"], c.get("from_form")),
+        _phase(c["to_phase"], c.get("to_form")),
+    )
 
 
 def _label(c: dict[str, Any]) -> str:
@@ -377,9 +476,13 @@ def _label(c: dict[str, Any]) -> str:
     return f"leg {step} {kind} ({fr} -> {to})"
 
 
-def compare_crossings(expected: list[dict[str, Any]], actual: list[dict[str, Any]],
-                      tol_T: float = _TOL_T, tol_p: float = _TOL_P,
-                      tol_latent: float = _TOL_L) -> list[dict[str, Any]]:
+def compare_crossings(
+    expected: list[dict[str, Any]],
+    actual: list[dict[str, Any]],
+    tol_T: float = _TOL_T,
+    tol_p: float = _TOL_P,
+    tol_latent: float = _TOL_L,
+) -> list[dict[str, Any]]:
     """Differences between two lists of crossings (dicts with SI values), in route order.
 
     Crossings are paired by (leg, kind, phases) in route order. A pair *moved* when
@@ -408,11 +511,13 @@ def compare_crossings(expected: list[dict[str, Any]], actual: list[dict[str, Any
             reasons.append("p")
         le, la = e.get("latent_heat"), a.get("latent_heat")
         if (le is None) != (la is None) or (
-                le is not None and la is not None and abs(la - le) > tol_latent * abs(le)):
+            le is not None and la is not None and abs(la - le) > tol_latent * abs(le)
+        ):
             reasons.append("latent heat")
         if reasons:
-            out.append({"status": "moved", "expected": e, "actual": a, "reasons": reasons,
-                        "order": a})
+            out.append(
+                {"status": "moved", "expected": e, "actual": a, "reasons": reasons, "order": a}
+            )
         elif e.get("boundary") != a.get("boundary"):
             out.append({"status": "changed", "expected": e, "actual": a, "order": a})
     for c in actual:
@@ -441,15 +546,22 @@ def _check(args: argparse.Namespace) -> int:
         return f"{convert(x, 'Pa', p_unit, 'pressure'):.8g} {UNIT_LABELS[p_unit]}"
 
     def L(x: float | None) -> str:
-        return "none" if x is None else (
-            f"{convert(x, 'J/kg', e_unit, 'energy'):.6g} {UNIT_LABELS[e_unit]}")
+        return (
+            "none"
+            if x is None
+            else (f"{convert(x, 'J/kg', e_unit, 'energy'):.6g} {UNIT_LABELS[e_unit]}")
+        )
 
     print(f"phasepath check: {args.route} against {args.expected}")
-    print(f"tolerances: T {args.tol_T:g} K, p {args.tol_p:g} relative, latent heat "
-          f"{args.tol_latent:g} relative")
+    print(
+        f"tolerances: T {args.tol_T:g} K, p {args.tol_p:g} relative, latent heat "
+        f"{args.tol_latent:g} relative"
+    )
     if sub_changed:
-        print(f"  ! substance: expected {expected_doc.get('substance')}, "
-              f"route is {report.substance.name}")
+        print(
+            f"  ! substance: expected {expected_doc.get('substance')}, "
+            f"route is {report.substance.name}"
+        )
     for d in diffs:
         e, a = d["expected"], d["actual"]
         if d["status"] == "moved":
@@ -457,20 +569,22 @@ def _check(args: argparse.Namespace) -> int:
             if "T" in d["reasons"]:
                 parts.append(f"T {T(e['T'])} -> {T(a['T'])} (change {a['T'] - e['T']:+.4g} K)")
             if "p" in d["reasons"]:
-                parts.append(f"p {P(e['p'])} -> {P(a['p'])} "
-                             f"(change {(a['p'] - e['p']) / e['p']:+.3g} relative)")
+                parts.append(
+                    f"p {P(e['p'])} -> {P(a['p'])} "
+                    f"(change {(a['p'] - e['p']) / e['p']:+.3g} relative)"
+                )
             if "latent heat" in d["reasons"]:
-                parts.append(f"latent heat {L(e.get('latent_heat'))} -> "
-                             f"{L(a.get('latent_heat'))}")
+                parts.append(f"latent heat {L(e.get('latent_heat'))} -> {L(a.get('latent_heat'))}")
             print(f"  ~ MOVED       {_label(e)}: " + "; ".join(parts))
         elif d["status"] == "changed":
-            print(f"  ~ CHANGED     {_label(e)}: boundary {e.get('boundary')!r} -> "
-                  f"{a.get('boundary')!r}")
+            print(
+                f"  ~ CHANGED     {_label(e)}: boundary {e.get('boundary')!r} -> "
+                f"{a.get('boundary')!r}"
+            )
         elif d["status"] == "appeared":
             print(f"  + APPEARED    {_label(a)} at T = {T(a['T'])}, p = {P(a['p'])}")
         else:
-            print(f"  - DISAPPEARED {_label(e)} (expected at T = {T(e['T'])}, "
-                  f"p = {P(e['p'])})")
+            print(f"  - DISAPPEARED {_label(e)} (expected at T = {T(e['T'])}, p = {P(e['p'])})")
     if diffs or sub_changed:
         counts: dict[str, int] = {}
         for d in diffs:
@@ -509,8 +623,9 @@ def _diagram(args: argparse.Namespace) -> int:
     sub = substance(args.substance)
     route = load_route(args.route) if args.route else None
     if route is not None and route.substance is not sub:
-        raise _UsageError(f"the route in {args.route} is for {route.substance.name}, "
-                          f"not {sub.name}")
+        raise _UsageError(
+            f"the route in {args.route} is for {route.substance.name}, not {sub.name}"
+        )
     report = route.analyze() if route is not None and route.legs else None
     T_unit, p_unit, _ = _units(args.units)
     tA, tB = _linear("K", T_unit, "temperature")
@@ -540,36 +655,70 @@ def _diagram(args: argparse.Namespace) -> int:
                 continue
             label = b.kind if b.kind not in drawn else None
             drawn.add(b.kind)
-            ax.plot(tA + tB * T[keep], pA + pB * p[keep], color=_COLOURS[b.kind], lw=1.8,
-                    ls="-" if b.reliable else "--", label=label)
-        ax.plot([tA + tB * T_t], [pA + pB * p_t], marker="o", ms=6, mfc="white",
-                mec="#222222", ls="none", label="triple point")
+            ax.plot(
+                tA + tB * T[keep],
+                pA + pB * p[keep],
+                color=_COLOURS[b.kind],
+                lw=1.8,
+                ls="-" if b.reliable else "--",
+                label=label,
+            )
+        ax.plot(
+            [tA + tB * T_t],
+            [pA + pB * p_t],
+            marker="o",
+            ms=6,
+            mfc="white",
+            mec="#222222",
+            ls="none",
+            label="triple point",
+        )
         if T_c <= T_hi:
-            ax.plot([tA + tB * T_c], [pA + pB * p_c], marker="s", ms=6, mfc="white",
-                    mec="#222222", ls="none", label="critical point")
+            ax.plot(
+                [tA + tB * T_c],
+                [pA + pB * p_c],
+                marker="s",
+                ms=6,
+                mfc="white",
+                mec="#222222",
+                ls="none",
+                label="critical point",
+            )
         if route is not None:
             cs = route.corners()
             xs = [tA + tB * T for T, _ in cs]
             ys = [pA + pB * p for _, p in cs]
             ax.plot(xs, ys, color="#111111", lw=1.4, label="route")
             for i in range(len(cs) - 1):
-                ax.annotate("", xy=(xs[i + 1], ys[i + 1]), xytext=(xs[i], ys[i]),
-                            arrowprops={"arrowstyle": "-|>", "color": "#111111", "lw": 1.2})
+                ax.annotate(
+                    "",
+                    xy=(xs[i + 1], ys[i + 1]),
+                    xytext=(xs[i], ys[i]),
+                    arrowprops={"arrowstyle": "-|>", "color": "#111111", "lw": 1.2},
+                )
             for i, (x, y) in enumerate(zip(xs, ys, strict=True)):
-                ax.annotate(str(i), (x, y), textcoords="offset points", xytext=(5, 5),
-                            fontsize=8)
+                ax.annotate(str(i), (x, y), textcoords="offset points", xytext=(5, 5), fontsize=8)
             if report is not None and report.crossings:
                 cx = [tA + tB * c.T for c in report.crossings]
                 cy = [pA + pB * c.p for c in report.crossings]
-                ax.plot(cx, cy, marker="D", ms=6, mfc="#f2c14e", mec="#111111", ls="none",
-                        label="crossing")
+                ax.plot(
+                    cx,
+                    cy,
+                    marker="D",
+                    ms=6,
+                    mfc="#f2c14e",
+                    mec="#111111",
+                    ls="none",
+                    label="crossing",
+                )
         ax.set_yscale("log")
         ax.set_xlim(tA + tB * T_lo, tA + tB * T_hi)
         ax.set_ylim(pA + pB * p_lo, pA + pB * p_hi)
         ax.set_xlabel(f"temperature [{UNIT_LABELS[T_unit]}]")
         ax.set_ylabel(f"pressure [{UNIT_LABELS[p_unit]}]")
-        title = args.title or (route.title if route is not None and route.title else
-                               f"{sub.name}: phase diagram")
+        title = args.title or (
+            route.title if route is not None and route.title else f"{sub.name}: phase diagram"
+        )
         ax.set_title(title, fontsize=11)
         ax.grid(True, which="major", color="#dddddd", lw=0.6)
         ax.legend(loc="lower right", fontsize=8, frameon=False)

@@ -96,18 +96,34 @@ P_MAX_DEFAULT = 100e6
 #: Default lowest temperature of a sublimation curve, as a fraction of the triple-point temperature.
 SUBLIMATION_FLOOR = 0.8
 
-_KEYS = ("molar_mass", "triple", "critical", "vapor_points", "antoine", "wagner",
-         "normal_boiling_point", "enthalpy_vaporization", "melting_point", "melting_slope",
-         "simon_glatzel", "enthalpy_sublimation", "enthalpy_fusion", "T_min", "T_max", "p_max",
-         "source")
+_KEYS = (
+    "molar_mass",
+    "triple",
+    "critical",
+    "vapor_points",
+    "antoine",
+    "wagner",
+    "normal_boiling_point",
+    "enthalpy_vaporization",
+    "melting_point",
+    "melting_slope",
+    "simon_glatzel",
+    "enthalpy_sublimation",
+    "enthalpy_fusion",
+    "T_min",
+    "T_max",
+    "p_max",
+    "source",
+)
 _MOLAR_ENERGY = {"j/mol": 1.0, "kj/mol": 1e3, "cal/mol": 4.184, "kcal/mol": 4184.0}
 _MOLAR_MASS = {"kg/mol": 1.0, "g/mol": 1e-3, "kg/kmol": 1e-3}
 _NUM = re.compile(r"^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*$")
 
 
 # -- parsing at the edge -------------------------------------------------------------------------
-def _scaled(value: object, what: str, units: dict[str, float], si: str,
-            positive: bool = True) -> float:
+def _scaled(
+    value: object, what: str, units: dict[str, float], si: str, positive: bool = True
+) -> float:
     """A number (SI) or a string with one of a few units (J/mol, kJ/mol; kg/mol, g/mol)."""
     if isinstance(value, bool) or value is None:
         raise NonFiniteError(f"{what} = {value!r} is not a number")
@@ -116,8 +132,10 @@ def _scaled(value: object, what: str, units: dict[str, float], si: str,
     elif isinstance(value, str) and (m := _NUM.match(value)):
         unit = m.group(2).strip().lower().replace(" ", "")
         if unit and unit not in units:
-            raise PhasePathError(f"{what} = {value!r}: unknown unit {m.group(2)!r}; use "
-                                 f"{', '.join(units)} (a bare number is {si})")
+            raise PhasePathError(
+                f"{what} = {value!r}: unknown unit {m.group(2)!r}; use "
+                f"{', '.join(units)} (a bare number is {si})"
+            )
         x = float(m.group(1)) * units.get(unit, 1.0)
     else:
         raise PhasePathError(f"{what} = {value!r} is not a number or a number with a unit ({si})")
@@ -146,8 +164,9 @@ def _only(d: object, allowed: tuple[str, ...], what: str) -> Mapping[str, Any]:
         raise PhasePathError(f"{what} = {d!r} must be a mapping with keys {', '.join(allowed)}")
     extra = [k for k in d if k not in allowed]
     if extra:
-        raise PhasePathError(f"{what}: unknown key(s) {', '.join(map(repr, extra))}; "
-                             f"known: {', '.join(allowed)}")
+        raise PhasePathError(
+            f"{what}: unknown key(s) {', '.join(map(repr, extra))}; known: {', '.join(allowed)}"
+        )
     return d
 
 
@@ -212,8 +231,13 @@ class _Curve:
     text: str
 
 
-def _vapor_curve(name: str, args: dict[str, Any], critical: tuple[float, float] | None,
-                 notes: list[str], fits: dict[str, VaporFit]) -> _Curve:
+def _vapor_curve(
+    name: str,
+    args: dict[str, Any],
+    critical: tuple[float, float] | None,
+    notes: list[str],
+    fits: dict[str, VaporFit],
+) -> _Curve:
     wagner, antoine = args.get("wagner"), args.get("antoine")
     points, T_b = args.get("vapor_points"), args.get("normal_boiling_point")
     dH = args.get("enthalpy_vaporization")
@@ -237,11 +261,15 @@ def _vapor_curve(name: str, args: dict[str, Any], critical: tuple[float, float] 
     if pts:
         dev = [100.0 * (p / curve.f(T) - 1.0) for T, p in pts]
         k = int(np.argmax(np.abs(dev)))
-        notes.append(f"The {len(pts)} vapor points given deviate from that curve by up to "
-                     f"{dev[k]:+.2g} % (at {pts[k][0]:g} K); they are not used to build it.")
+        notes.append(
+            f"The {len(pts)} vapor points given deviate from that curve by up to "
+            f"{dev[k]:+.2g} % (at {pts[k][0]:g} K); they are not used to build it."
+        )
     if Tb is not None:
-        notes.append(f"Normal boiling point given {Tb:g} K; the curve reaches 101325 Pa at "
-                     f"{_solve_T(curve.f, vp.P_ATM, *curve.T_valid):.5g} K.")
+        notes.append(
+            f"Normal boiling point given {Tb:g} K; the curve reaches 101325 Pa at "
+            f"{_solve_T(curve.f, vp.P_ATM, *curve.T_valid):.5g} K."
+        )
     return curve
 
 
@@ -261,16 +289,17 @@ def _wagner_curve(d: object, critical: tuple[float, float] | None) -> _Curve:
     need = "form ('3-6' or '2.5-5'), a, b, c, d, T_min [K] (T_max, T_c, p_c optional)"
     form = str(w.get("form", ""))
     if form not in ("3-6", "2.5-5"):
-        raise PhasePathError(f"wagner: form = {w.get('form')!r}; give '3-6' (original) or "
-                             "'2.5-5'")
+        raise PhasePathError(f"wagner: form = {w.get('form')!r}; give '3-6' (original) or '2.5-5'")
     coef = tuple(_number(w, k, "wagner", need) for k in "abcd")
     if "T_c" in w or "p_c" in w:
         T_c, p_c = _T(w.get("T_c"), "wagner T_c"), _p(w.get("p_c"), "wagner p_c")
     elif critical is not None:
         T_c, p_c = critical
     else:
-        raise PhasePathError("wagner: the Wagner equation needs the critical point it was fitted "
-                             "with: give T_c and p_c in it, or critical=(T_c, p_c)")
+        raise PhasePathError(
+            "wagner: the Wagner equation needs the critical point it was fitted "
+            "with: give T_c and p_c in it, or critical=(T_c, p_c)"
+        )
     if "T_min" not in w:
         raise PhasePathError(f"wagner: 'T_min' is missing; give {need}")
     lo = _T(w["T_min"], "wagner T_min")
@@ -281,9 +310,13 @@ def _wagner_curve(d: object, critical: tuple[float, float] | None) -> _Curve:
     def f(T: float) -> float:
         return func(min(T, T_c), T_c, p_c, *coef)
 
-    return _Curve(f, (lo, hi), "Wagner1973" if form == "3-6" else "Poling2001",
-                  f"Wagner equation ({form} form), published range {lo:g} K to {hi:g} K, "
-                  f"fitted with T_c = {T_c:g} K, p_c = {p_c:.6g} Pa.")
+    return _Curve(
+        f,
+        (lo, hi),
+        "Wagner1973" if form == "3-6" else "Poling2001",
+        f"Wagner equation ({form} form), published range {lo:g} K to {hi:g} K, "
+        f"fitted with T_c = {T_c:g} K, p_c = {p_c:.6g} Pa.",
+    )
 
 
 def _antoine_curve(d: object) -> _Curve:
@@ -297,35 +330,52 @@ def _antoine_curve(d: object) -> _Curve:
     base = a.get("base", 10)
     base = math.e if base in ("e", "ln") else float(base)
     if lo + C <= 0.0:
-        raise OutOfRangeError(f"antoine: T_min = {lo:g} K lies at or below the pole of the "
-                              f"equation (T + C <= 0 with C = {C:g} K)")
+        raise OutOfRangeError(
+            f"antoine: T_min = {lo:g} K lies at or below the pole of the "
+            f"equation (T + C <= 0 with C = {C:g} K)"
+        )
 
     def f(T: float) -> float:
         return base ** (A - B / max(T + C, 1e-3 * (lo + C)))
 
-    return _Curve(f, (lo, hi), "Antoine1888",
-                  f"Antoine equation log{'10' if base == 10 else f'[{base:g}]'}(p/Pa) = "
-                  f"{A:.6g} - {B:.6g}/(T/K {_signed(C)}), published range {lo:g} K to {hi:g} K.")
+    return _Curve(
+        f,
+        (lo, hi),
+        "Antoine1888",
+        f"Antoine equation log{'10' if base == 10 else f'[{base:g}]'}(p/Pa) = "
+        f"{A:.6g} - {B:.6g}/(T/K {_signed(C)}), published range {lo:g} K to {hi:g} K.",
+    )
 
 
-def _fitted_curve(pts: tuple[tuple[float, float], ...], Tb: float | None, dH: float | None,
-                  fits: dict[str, VaporFit], notes: list[str]) -> _Curve:
+def _fitted_curve(
+    pts: tuple[tuple[float, float], ...],
+    Tb: float | None,
+    dH: float | None,
+    fits: dict[str, VaporFit],
+    notes: list[str],
+) -> _Curve:
     if Tb is not None and all(abs(T - Tb) > 1e-9 * Tb for T, _ in pts):
         pts = tuple(sorted(pts + ((Tb, vp.P_ATM),)))
     if len(pts) == 1:
         if dH is None:
-            raise PhasePathError("one vapor point (or a normal boiling point alone) does not fix "
-                                 "a curve: give enthalpy_vaporization=... as well")
-        (T0, p0), = pts
+            raise PhasePathError(
+                "one vapor point (or a normal boiling point alone) does not fix "
+                "a curve: give enthalpy_vaporization=... as well"
+            )
+        ((T0, p0),) = pts
         lo, hi = T0 - CC_WINDOW, T0 + CC_WINDOW
 
         def f1(T: float) -> float:
             return vp.clausius_clapeyron(T, T0, p0, dH)
 
-        return _Curve(f1, (lo, hi), "Clausius1850",
-                      f"Integrated Clausius-Clapeyron through ({T0:g} K, {p0:.6g} Pa) with a "
-                      f"constant enthalpy of vaporization {dH / 1e3:.4g} kJ/mol; accepted within "
-                      f"±{CC_WINDOW:g} K of that point.")
+        return _Curve(
+            f1,
+            (lo, hi),
+            "Clausius1850",
+            f"Integrated Clausius-Clapeyron through ({T0:g} K, {p0:.6g} Pa) with a "
+            f"constant enthalpy of vaporization {dH / 1e3:.4g} kJ/mol; accepted within "
+            f"±{CC_WINDOW:g} K of that point.",
+        )
     cc = fit_clausius_clapeyron(pts)
     fits["clausius-clapeyron"] = cc
     chosen = cc
@@ -339,14 +389,21 @@ def _fitted_curve(pts: tuple[tuple[float, float], ...], Tb: float | None, dH: fl
     if chosen is not cc:
         text += " " + cc.describe()
     if dH is not None:
-        text += (f" Enthalpy of vaporization given {dH / 1e3:.4g} kJ/mol (not used: the points "
-                 "define the curve).")
-    return _Curve(chosen.pressure, chosen.T_range,
-                  "Antoine1888" if chosen.form == "antoine" else "Clausius1850", text)
+        text += (
+            f" Enthalpy of vaporization given {dH / 1e3:.4g} kJ/mol (not used: the points "
+            "define the curve)."
+        )
+    return _Curve(
+        chosen.pressure,
+        chosen.T_range,
+        "Antoine1888" if chosen.form == "antoine" else "Clausius1850",
+        text,
+    )
 
 
-def _bridge(f: Callable[[float], float], T0: float, T1: float, p1: float
-            ) -> tuple[Callable[[float], float], str]:
+def _bridge(
+    f: Callable[[float], float], T0: float, T1: float, p1: float
+) -> tuple[Callable[[float], float], str]:
     """Curve from the end of the data (T0, f(T0)) to a given point (T1, p1), in x = 1/T."""
     x0, x1 = 1.0 / T0, 1.0 / T1
     g0 = math.log(f(T0))
@@ -356,6 +413,7 @@ def _bridge(f: Callable[[float], float], T0: float, T1: float, p1: float
     dx = x1 - x0
     k = (math.log(p1) - g0 - d0 * dx) / dx**2
     if d0 < 0.0 and d0 + 2.0 * k * dx < 0.0:  # ln p falls with x all along: monotonic in T
+
         def quad(T: float) -> float:
             u = 1.0 / T - x0
             return math.exp(g0 + d0 * u + k * u * u)
@@ -440,21 +498,39 @@ def from_data(
 
     if not isinstance(name, str) or not name.strip():
         raise PhasePathError(f"name = {name!r}: a substance built from data needs a name")
-    given = {k: v for k, v in dict(
-        triple=triple, critical=critical, vapor_points=vapor_points, antoine=antoine,
-        wagner=wagner, normal_boiling_point=normal_boiling_point,
-        enthalpy_vaporization=enthalpy_vaporization, molar_mass=molar_mass,
-        melting_point=melting_point, melting_slope=melting_slope, simon_glatzel=simon_glatzel,
-        enthalpy_sublimation=enthalpy_sublimation, enthalpy_fusion=enthalpy_fusion,
-        T_min=T_min, T_max=T_max, p_max=p_max, source=source or None).items() if v is not None}
+    given = {
+        k: v
+        for k, v in dict(
+            triple=triple,
+            critical=critical,
+            vapor_points=vapor_points,
+            antoine=antoine,
+            wagner=wagner,
+            normal_boiling_point=normal_boiling_point,
+            enthalpy_vaporization=enthalpy_vaporization,
+            molar_mass=molar_mass,
+            melting_point=melting_point,
+            melting_slope=melting_slope,
+            simon_glatzel=simon_glatzel,
+            enthalpy_sublimation=enthalpy_sublimation,
+            enthalpy_fusion=enthalpy_fusion,
+            T_min=T_min,
+            T_max=T_max,
+            p_max=p_max,
+            source=source or None,
+        ).items()
+        if v is not None
+    }
     recipe: dict[str, Any] = {"name": name, **{k: _plain(v) for k, v in given.items()}}
     notes: list[str] = []
     missing: list[str] = []
     fits: dict[str, VaporFit] = {}
     where = f" ({source})" if source else ""
-    notes.append(f"{name} is built from data{where}, not from an equation of state: heat and work "
-                 "per leg are not computed, and latent heats are approximate (Clausius-Clapeyron, "
-                 "ideal gas).")
+    notes.append(
+        f"{name} is built from data{where}, not from an equation of state: heat and work "
+        "per leg are not computed, and latent heats are approximate (Clausius-Clapeyron, "
+        "ideal gas)."
+    )
 
     crit = _pair(critical, "critical") if critical is not None else None
     T_c, p_c = crit if crit is not None else (None, None)
@@ -470,8 +546,9 @@ def from_data(
     T_m = _T(melting_point, "melting_point") if melting_point is not None else None
     slope = None
     if melting_slope is not None:
-        slope = _scaled(melting_slope, "melting_slope", {"pa/k": 1.0, "mpa/k": 1e6,
-                                                         "bar/k": 1e5}, "Pa/K")
+        slope = _scaled(
+            melting_slope, "melting_slope", {"pa/k": 1.0, "mpa/k": 1e6, "bar/k": 1e5}, "Pa/K"
+        )
     if triple is not None:
         T_t, p_t_given = _pair(triple, "triple", p_optional=True)
     elif T_m is not None:
@@ -479,23 +556,32 @@ def from_data(
             T_t = T_m
             for _ in range(3):
                 T_t = T_m - (vp.P_ATM - curve.f(T_t)) / slope
-            notes.append(f"Triple point placed where the melting line meets the vapor-pressure "
-                         f"curve: {T_t:.5g} K.")
+            notes.append(
+                f"Triple point placed where the melting line meets the vapor-pressure "
+                f"curve: {T_t:.5g} K."
+            )
         else:
             T_t = T_m
-            notes.append(f"Triple-point temperature taken as the melting point, {T_m:g} K (they "
-                         "differ by hundredths of a kelvin for most substances: common practice).")
+            notes.append(
+                f"Triple-point temperature taken as the melting point, {T_m:g} K (they "
+                "differ by hundredths of a kelvin for most substances: common practice)."
+            )
     else:
         missing.append("triple point")
-        notes.append(f"No triple point given: the diagram starts at {lo:g} K, the bottom of the "
-                     "vapor-pressure data; no solid is shown.")
+        notes.append(
+            f"No triple point given: the diagram starts at {lo:g} K, the bottom of the "
+            "vapor-pressure data; no solid is shown."
+        )
     if T_c is None:
         missing.append("critical point")
-        notes.append(f"No critical point given: the vapor-pressure curve ends at {hi:g} K, the top "
-                     "of its data; states above it are refused.")
+        notes.append(
+            f"No critical point given: the vapor-pressure curve ends at {hi:g} K, the top "
+            "of its data; states above it are refused."
+        )
     if T_t is not None and T_c is not None and not T_t < T_c:
-        raise PhasePathError(f"{name}: triple point {T_t:g} K is not below the critical point "
-                             f"{T_c:g} K")
+        raise PhasePathError(
+            f"{name}: triple point {T_t:g} K is not below the critical point {T_c:g} K"
+        )
 
     # -- vapor-pressure boundary -------------------------------------------------------------
     T_lo = T_t if T_t is not None else lo
@@ -504,25 +590,33 @@ def from_data(
     if lo >= hi:
         raise PhasePathError(
             f"{name}: the vapor-pressure data ({curve.T_valid[0]:g} K to {curve.T_valid[1]:g} K) "
-            f"lie outside the liquid range {T_lo:g} K to {T_hi:g} K")
+            f"lie outside the liquid range {T_lo:g} K to {T_hi:g} K"
+        )
     f, lower, upper = curve.f, None, None
     if T_lo < lo:
         if p_t_given is not None:
             lower, how = _bridge(f, lo, T_lo, p_t_given)
-            notes.append(f"Below {lo:g} K the vapor-pressure curve is a bridge ({how}) to the "
-                         "given triple point: an interpolation without data.")
+            notes.append(
+                f"Below {lo:g} K the vapor-pressure curve is a bridge ({how}) to the "
+                "given triple point: an interpolation without data."
+            )
         else:
-            notes.append(f"Below {lo:g} K the vapor-pressure curve is extrapolated to the triple "
-                         "point.")
+            notes.append(
+                f"Below {lo:g} K the vapor-pressure curve is extrapolated to the triple point."
+            )
     if T_hi > hi and p_c is not None:
         upper, how = _bridge(f, hi, T_hi, p_c)
-        notes.append(f"Above {hi:g} K the vapor-pressure curve is a bridge ({how}) to the critical "
-                     "point: an interpolation without data.")
+        notes.append(
+            f"Above {hi:g} K the vapor-pressure curve is a bridge ({how}) to the critical "
+            "point: an interpolation without data."
+        )
     elif T_c is not None and p_c is not None:
         gap = f(T_c) / p_c - 1.0
         if abs(gap) > 1e-6:
-            notes.append(f"The vapor-pressure curve ends {100 * gap:+.2g} % from the given "
-                         "critical pressure.")
+            notes.append(
+                f"The vapor-pressure curve ends {100 * gap:+.2g} % from the given "
+                "critical pressure."
+            )
 
     def p_vap(T: float, _lo: float = lo, _hi: float = hi) -> float:
         if T < _lo and lower is not None:
@@ -531,8 +625,16 @@ def from_data(
             return upper(T)
         return f(T)
 
-    vapor = Boundary("vaporization", "vapor pressure", T_lo, T_hi, curve.source, p_vap,
-                     note=curve.text, T_valid=(lo, hi))
+    vapor = Boundary(
+        "vaporization",
+        "vapor pressure",
+        T_lo,
+        T_hi,
+        curve.source,
+        p_vap,
+        note=curve.text,
+        T_valid=(lo, hi),
+    )
     _check_rising(vapor, name)
     notes.insert(1, "Vapor pressure: " + curve.text)
 
@@ -540,12 +642,16 @@ def from_data(
     if T_t is not None:
         p_t = p_vap(T_t)
         if p_t_given is not None and abs(p_t / p_t_given - 1.0) > 1e-6:
-            notes.append(f"Triple-point pressure given {p_t_given:.6g} Pa; the vapor-pressure "
-                         f"curve gives {p_t:.6g} Pa there, which the diagram uses so that its "
-                         "curves meet.")
+            notes.append(
+                f"Triple-point pressure given {p_t_given:.6g} Pa; the vapor-pressure "
+                f"curve gives {p_t:.6g} Pa there, which the diagram uses so that its "
+                "curves meet."
+            )
         elif p_t_given is None:
-            notes.append(f"Triple-point pressure not given: taken from the vapor-pressure curve, "
-                         f"{p_t:.6g} Pa.")
+            notes.append(
+                f"Triple-point pressure not given: taken from the vapor-pressure curve, "
+                f"{p_t:.6g} Pa."
+            )
 
     # -- limits --------------------------------------------------------------------------------
     T_top = _T(T_max, "T_max") if T_max is not None else (1.5 * T_c if T_c is not None else T_hi)
@@ -561,12 +667,17 @@ def from_data(
             melting.append(m)
     if not melting:
         missing.append("melting curve")
-        notes.append("No melting curve given: freezing under pressure above the triple-point "
-                     "temperature is not detected.")
+        notes.append(
+            "No melting curve given: freezing under pressure above the triple-point "
+            "temperature is not detected."
+        )
 
     # -- sublimation ---------------------------------------------------------------------------
-    dH_sub = _enthalpy(enthalpy_sublimation, "enthalpy_sublimation") \
-        if enthalpy_sublimation is not None else None
+    dH_sub = (
+        _enthalpy(enthalpy_sublimation, "enthalpy_sublimation")
+        if enthalpy_sublimation is not None
+        else None
+    )
     dH_fus = _enthalpy(enthalpy_fusion, "enthalpy_fusion") if enthalpy_fusion is not None else None
     sublimation = None
     T_floor: float
@@ -575,14 +686,18 @@ def from_data(
         if dH_sub is None:
             assert dH_fus is not None
             dH_sub = dH_fus + dH_vap_t
-            notes.append(f"Enthalpy of sublimation {dH_sub / 1e3:.4g} kJ/mol = fusion "
-                         f"{dH_fus / 1e3:.4g} + vaporization at the triple point "
-                         f"{dH_vap_t / 1e3:.4g} (from the vapor-pressure curve's slope).")
+            notes.append(
+                f"Enthalpy of sublimation {dH_sub / 1e3:.4g} kJ/mol = fusion "
+                f"{dH_fus / 1e3:.4g} + vaporization at the triple point "
+                f"{dH_vap_t / 1e3:.4g} (from the vapor-pressure curve's slope)."
+            )
         elif dH_fus is None:
             dH_fus = dH_sub - dH_vap_t
-            notes.append(f"Enthalpy of fusion {dH_fus / 1e3:.4g} kJ/mol = sublimation "
-                         f"{dH_sub / 1e3:.4g} - vaporization at the triple point "
-                         f"{dH_vap_t / 1e3:.4g} (from the vapor-pressure curve's slope).")
+            notes.append(
+                f"Enthalpy of fusion {dH_fus / 1e3:.4g} kJ/mol = sublimation "
+                f"{dH_sub / 1e3:.4g} - vaporization at the triple point "
+                f"{dH_vap_t / 1e3:.4g} (from the vapor-pressure curve's slope)."
+            )
         T_floor = _T(T_min, "T_min") if T_min is not None else SUBLIMATION_FLOOR * T_t
         if not T_floor < T_t:
             raise OutOfRangeError(f"T_min = {T_min!r} is not below the triple point {T_t:g} K")
@@ -592,18 +707,29 @@ def from_data(
             return vp.clausius_clapeyron(T, Tt_, pt_, dHs)
 
         sublimation = Boundary(
-            "sublimation", "sublimation", T_floor, T_t, "Clausius1850", p_sub,
-            note=(f"Integrated Clausius-Clapeyron from the triple point with a constant enthalpy "
-                  f"of sublimation {dH_sub / 1e3:.4g} kJ/mol: approximate."))
-        notes.append(f"Sublimation: {sublimation.note} Drawn down to {T_floor:.4g} K"
-                     + (" (T_min not given: 0.8 of the triple-point temperature)."
-                        if T_min is None else "."))
+            "sublimation",
+            "sublimation",
+            T_floor,
+            T_t,
+            "Clausius1850",
+            p_sub,
+            note=(
+                f"Integrated Clausius-Clapeyron from the triple point with a constant enthalpy "
+                f"of sublimation {dH_sub / 1e3:.4g} kJ/mol: approximate."
+            ),
+        )
+        notes.append(
+            f"Sublimation: {sublimation.note} Drawn down to {T_floor:.4g} K"
+            + (" (T_min not given: 0.8 of the triple-point temperature)." if T_min is None else ".")
+        )
     else:
         T_floor = T_lo
         if T_t is not None:
             missing.append("sublimation curve")
-            notes.append(f"Below the triple-point temperature: {NO_SUBLIMATION}. Give "
-                         "enthalpy_sublimation or enthalpy_fusion to build one.")
+            notes.append(
+                f"Below the triple-point temperature: {NO_SUBLIMATION}. Give "
+                "enthalpy_sublimation or enthalpy_fusion to build one."
+            )
         if T_min is not None and _T(T_min, "T_min") > T_floor:
             T_floor = _T(T_min, "T_min")
     if M is None:
@@ -614,16 +740,30 @@ def from_data(
         name=name,
         triple=(T_t, p_t) if T_t is not None and p_t is not None else (math.nan, math.nan),
         critical=(T_c, p_c) if T_c is not None and p_c is not None else (math.nan, math.nan),
-        T_max=T_top, p_max=P_top, vapor=vapor, melting=tuple(melting), sublimation=sublimation,
-        notes=tuple(notes), eos=None, T_min=T_floor,
+        T_max=T_top,
+        p_max=P_top,
+        vapor=vapor,
+        melting=tuple(melting),
+        sublimation=sublimation,
+        notes=tuple(notes),
+        eos=None,
+        T_min=T_floor,
     )
     sub.source_data = SubstanceData(recipe, fits, M, dH_fus, dH_sub, tuple(missing))
     _register(sub)
     return sub
 
 
-def _melting(sg: Mapping[str, Any] | None, slope: float | None, T_m: float | None, T_t: float,
-             p_t: float, T_top: float, P_top: float, notes: list[str]) -> Boundary | None:
+def _melting(
+    sg: Mapping[str, Any] | None,
+    slope: float | None,
+    T_m: float | None,
+    T_t: float,
+    p_t: float,
+    T_top: float,
+    P_top: float,
+    notes: list[str],
+) -> Boundary | None:
     from scipy.optimize import brentq
 
     if sg is not None:
@@ -640,10 +780,13 @@ def _melting(sg: Mapping[str, Any] | None, slope: float | None, T_m: float | Non
             return vp.simon_glatzel(T, T_ref, p_ref, a, c) + shift
 
         source = "SimonGlatzel1929"
-        text = (f"Simon-Glatzel equation, a = {a:.6g} Pa, c = {c:.5g}, from ({T_ref:g} K, "
-                f"{p_ref:.6g} Pa)")
+        text = (
+            f"Simon-Glatzel equation, a = {a:.6g} Pa, c = {c:.5g}, from ({T_ref:g} K, "
+            f"{p_ref:.6g} Pa)"
+        )
         valid_top = _T(d["T_max"], "simon_glatzel T_max") if d.get("T_max") is not None else None
     elif slope is not None:
+
         def p_m(T: float) -> float:
             return p_t + slope * (T - T_t)
 
@@ -652,8 +795,10 @@ def _melting(sg: Mapping[str, Any] | None, slope: float | None, T_m: float | Non
         valid_top = T_m if T_m is not None and T_m > T_t else T_t + vp.P_ATM / slope
     else:
         if T_m is not None:
-            notes.append("Melting point given without a slope: it places the triple point but "
-                         "does not define a melting curve.")
+            notes.append(
+                "Melting point given without a slope: it places the triple point but "
+                "does not define a melting curve."
+            )
         return None
     top = T_top
     if sg is not None and valid_top is not None:
@@ -674,7 +819,8 @@ def _check_rising(b: Boundary, name: str) -> None:
         k = int(np.argmax(~(np.diff(p) > 0))) if np.all(np.isfinite(p)) else 0
         raise PhasePathError(
             f"{name}: the vapor-pressure curve does not rise with temperature near {T[k]:.5g} K; "
-            "check the coefficients and their units (pressure in Pa, temperature in K)")
+            "check the coefficients and their units (pressure in Pa, temperature in K)"
+        )
 
 
 def _dlnp_dT(b: Boundary, T: float) -> float:
@@ -730,8 +876,10 @@ def from_dict(data: Mapping[str, Any]) -> Substance:
         raise PhasePathError(f"a substance mapping needs a 'name' (got {data!r})")
     extra = [k for k in data if k != "name" and k not in _KEYS]
     if extra:
-        raise PhasePathError(f"substance {data.get('name')!r}: unknown key(s) "
-                             f"{', '.join(map(repr, extra))}; known: name, {', '.join(_KEYS)}")
+        raise PhasePathError(
+            f"substance {data.get('name')!r}: unknown key(s) "
+            f"{', '.join(map(repr, extra))}; known: name, {', '.join(_KEYS)}"
+        )
     if len(data) == 1:
         return substance(data["name"])
     try:
@@ -750,9 +898,14 @@ def from_dict(data: Mapping[str, Any]) -> Substance:
 
 
 # -- latent heats and range warnings (used by thermo and analysis) -------------------------------
-def approximate_latent_heat(sub: Substance, kind: str, T: float, p: float,
-                            before: tuple[str, str | None], after: tuple[str, str | None]
-                            ) -> tuple[float | None, str | None, str]:
+def approximate_latent_heat(
+    sub: Substance,
+    kind: str,
+    T: float,
+    p: float,
+    before: tuple[str, str | None],
+    after: tuple[str, str | None],
+) -> tuple[float | None, str | None, str]:
     """(latent heat [J/kg], model, note) at a crossing of a substance without an equation of state.
 
     Vaporization and sublimation: L = R T^2 d(ln p)/dT / M along the curve crossed (ideal gas,
@@ -774,13 +927,17 @@ def approximate_latent_heat(sub: Substance, kind: str, T: float, p: float,
     if molar is None:
         return None, None, "no model for this transition"
     if data is None or data.molar_mass is None:
-        return None, None, (f"no molar mass given: about {molar / 1e3:.4g} kJ/mol "
-                            f"({LATENT_HEAT_MODEL})")
+        return (
+            None,
+            None,
+            (f"no molar mass given: about {molar / 1e3:.4g} kJ/mol ({LATENT_HEAT_MODEL})"),
+        )
     return molar / data.molar_mass, model, ""
 
 
-def range_warnings(sub: Substance, corners: Sequence[tuple[float, float]],
-                   crossings: Sequence[Crossing]) -> list[str]:
+def range_warnings(
+    sub: Substance, corners: Sequence[tuple[float, float]], crossings: Sequence[Crossing]
+) -> list[str]:
     """Warnings for a route that leaves the data range of a boundary (``Boundary.T_valid``).
 
     One line for each crossing that lies on a boundary outside its data range, and one for the
@@ -797,17 +954,20 @@ def range_warnings(sub: Substance, corners: Sequence[tuple[float, float]],
             continue
         lo, hi = b.T_valid
         if not (lo * (1 - 1e-9) <= c.T <= hi * (1 + 1e-9)):
-            out.append(f"Warning: leg {c.step} crosses the {b.label} curve at T = {c.T:.5g} K, "
-                       f"outside the range of its data ({lo:.5g} K to {hi:.5g} K): the curve is "
-                       "extrapolated there and the crossing is uncertain.")
+            out.append(
+                f"Warning: leg {c.step} crosses the {b.label} curve at T = {c.T:.5g} K, "
+                f"outside the range of its data ({lo:.5g} K to {hi:.5g} K): the curve is "
+                "extrapolated there and the crossing is uncertain."
+            )
     v = ranged.get("vapor pressure")
     if v is not None and v.T_valid is not None:
         lo, hi = v.T_valid
-        outside = sorted({T for T, _ in corners
-                          if v.T_min <= T <= v.T_max and not (lo <= T <= hi)})
+        outside = sorted({T for T, _ in corners if v.T_min <= T <= v.T_max and not (lo <= T <= hi)})
         if outside:
             Ts = ", ".join(f"{T:.5g} K" for T in outside)
-            out.append(f"Warning: the route reaches {Ts}, outside the range of the vapor-pressure "
-                       f"data ({lo:.5g} K to {hi:.5g} K): the phases there rest on the "
-                       "extrapolated curve.")
+            out.append(
+                f"Warning: the route reaches {Ts}, outside the range of the vapor-pressure "
+                f"data ({lo:.5g} K to {hi:.5g} K): the phases there rest on the "
+                "extrapolated curve."
+            )
     return out

@@ -86,29 +86,28 @@ class EOS:
 
     def latent_heat_vaporization(self, T: float) -> float:
         """h'' - h' [J/kg] at T [K] on the vapor-pressure curve."""
-        self._check_sat_T(T)
-        with self._lock:
-            try:
-                self.calls += 2
-                self._as.update(CP.QT_INPUTS, 1.0, T)
-                hv = self._as.hmass()
-                self._as.update(CP.QT_INPUTS, 0.0, T)
-                hl = self._as.hmass()
-            except Exception as exc:
-                raise PropertyError(f"{self.name}: saturation at T = {T} K failed: {exc}") from None
-        return self._finite(hv - hl, f"latent heat at T = {T} K")
+        liquid, vapor = self.saturated(T)
+        return vapor[0] - liquid[0]
 
     def _sat(self, pair: int, a: float, b: float, out: str) -> float:
+        return self._update(pair, a, b, (out,), f"saturation state ({a}, {b})")[0]
+
+    def _update(
+        self, pair: int, a: float, b: float, outputs: tuple[str, ...], what: str
+    ) -> tuple[float, ...]:
+        """One guarded CoolProp update: the named outputs, finite, or a PropertyError."""
         with self._lock:
+            st = self._as
             try:
                 self.calls += 1
-                self._as.update(pair, a, b)
-                v = self._as.p() if out == "p" else self._as.T()
+                st.update(pair, a, b)  # type: ignore[arg-type]
+                values = tuple(float(getattr(st, name)()) for name in outputs)
             except Exception as exc:
-                raise PropertyError(
-                    f"{self.name}: saturation state ({a}, {b}) failed: {exc}"
-                ) from None
-        return self._finite(v, f"saturation state ({a}, {b})")
+                raise PropertyError(f"{self.name}: {what} failed: {exc}") from None
+        for v, name in zip(values, outputs, strict=False):
+            if name != "Q":
+                self._finite(v, what)
+        return values
 
     # -- melting line ---------------------------------------------------------------------------
     def melting_range(self) -> tuple[float, float, float, float]:
@@ -128,7 +127,9 @@ class EOS:
                 self.calls += 1
                 v = self._as.melting_line(CP.iP, CP.iT, T)
             except Exception as exc:
-                raise PropertyError(f"{self.name}: melting line at T = {T} K failed: {exc}") from None
+                raise PropertyError(
+                    f"{self.name}: melting line at T = {T} K failed: {exc}"
+                ) from None
         return self._finite(v, f"melting pressure at T = {T} K")
 
     def T_melt(self, p: float) -> float:
@@ -138,7 +139,9 @@ class EOS:
                 self.calls += 1
                 v = self._as.melting_line(CP.iT, CP.iP, p)
             except Exception as exc:
-                raise PropertyError(f"{self.name}: melting line at p = {p} Pa failed: {exc}") from None
+                raise PropertyError(
+                    f"{self.name}: melting line at p = {p} Pa failed: {exc}"
+                ) from None
         return self._finite(v, f"melting temperature at p = {p} Pa")
 
     # -- single-phase states --------------------------------------------------------------------
@@ -190,57 +193,38 @@ class EOS:
 
         The caller makes sure the state is single-phase (outside the saturation dome).
         """
-        with self._lock:
-            a = self._as
-            try:
-                self.calls += 1
-                a.update(CP.DmassT_INPUTS, rho, T)
-                out = (a.p(), a.hmass(), a.smass())
-            except Exception as exc:
-                raise PropertyError(
-                    f"{self.name}: no fluid state at T = {T} K, density = {rho} kg/m3 ({exc})"
-                ) from None
-        for v in out:
-            self._finite(v, f"state at T = {T} K, density = {rho} kg/m3")
-        return out
+        p, h, s = self._update(
+            CP.DmassT_INPUTS,
+            rho,
+            T,
+            ("p", "hmass", "smass"),
+            f"fluid state at T = {T} K, density = {rho} kg/m3",
+        )
+        return p, h, s
 
     def flash(self, prop: str, p: float, value: float) -> tuple[float, float, float, float, float]:
         """(T, h, s, rho, quality) from p [Pa] and h [J/kg] or s [J/(kg K)]: CoolProp's own flash.
 
         Used for fluid states above the triple-point pressure; the caller checks the answer.
         """
-        pair = CP.HmassP_INPUTS if prop == "h" else CP.PSmass_INPUTS
-        with self._lock:
-            a = self._as
-            try:
-                self.calls += 1
-                if prop == "h":
-                    a.update(pair, value, p)
-                else:
-                    a.update(pair, p, value)
-                out = (a.T(), a.hmass(), a.smass(), a.rhomass(), a.Q())
-            except Exception as exc:
-                raise PropertyError(
-                    f"{self.name}: no state at p = {p} Pa with {prop} = {value} ({exc})"
-                ) from None
-        for v in out[:4]:
-            self._finite(v, f"state at p = {p} Pa with {prop} = {value}")
-        return out
+        pair, a, b = (CP.HmassP_INPUTS, value, p) if prop == "h" else (CP.PSmass_INPUTS, p, value)
+        T, h, s, rho, q = self._update(
+            pair,
+            a,
+            b,
+            ("T", "hmass", "smass", "rhomass", "Q"),
+            f"state at p = {p} Pa with {prop} = {value}",
+        )
+        return T, h, s, rho, q
 
     def saturated(self, T: float) -> tuple[tuple[float, float, float], tuple[float, float, float]]:
         """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]."""
         self._check_sat_T(T)
-        out = []
-        with self._lock:
-            a = self._as
-            for q in (0.0, 1.0):
-                try:
-                    self.calls += 1
-                    a.update(CP.QT_INPUTS, q, T)
-                    out.append((a.hmass(), a.smass(), a.rhomass()))
-                except Exception as exc:
-                    raise PropertyError(f"{self.name}: saturation at T = {T} K failed: {exc}") from None
-        return out[0], out[1]
+        what = f"saturation at T = {T} K"
+        names = ("hmass", "smass", "rhomass")
+        hl, sl, rl = self._update(CP.QT_INPUTS, 0.0, T, names, what)
+        hv, sv, rv = self._update(CP.QT_INPUTS, 1.0, T, names, what)
+        return (hl, sl, rl), (hv, sv, rv)
 
     def _finite(self, v: float, what: str) -> float:
         v = float(v)

@@ -30,10 +30,18 @@ class UnknownSubstanceError(PhasePathError):
     def __init__(self, name: object, suggestions: list[str] | tuple[str, ...] = ()) -> None:
         self.name = name
         self.suggestions = tuple(suggestions)
-        hint = f"; did you mean {', '.join(repr(s) for s in self.suggestions)}?" if suggestions else ""
-        shown = repr(name) if len(repr(name)) <= 80 else f"{repr(name)[:60]}… ({len(repr(name))} characters)"
-        super().__init__(f"unknown substance {shown}{hint} (phasepath.substances() lists the "
-                         f"names it knows; aliases such as 'CO2' or 'water' work too)")
+        hint = (
+            f"; did you mean {', '.join(repr(s) for s in self.suggestions)}?" if suggestions else ""
+        )
+        shown = (
+            repr(name)
+            if len(repr(name)) <= 80
+            else f"{repr(name)[:60]}… ({len(repr(name))} characters)"
+        )
+        super().__init__(
+            f"unknown substance {shown}{hint} (phasepath.substances() lists the "
+            f"names it knows; aliases such as 'CO2' or 'water' work too)"
+        )
 
 
 class OutOfRangeError(PhasePathError):

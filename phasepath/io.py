@@ -43,8 +43,16 @@ from .errors import PhasePathError, RouteFileError
 from .route import LEG_KINDS, Route
 from .units import parse_quantity
 
-__all__ = ["load_route", "save_route", "loads_route", "dumps_route", "schema", "FORMAT",
-           "VERSION", "MAX_BYTES"]
+__all__ = [
+    "load_route",
+    "save_route",
+    "loads_route",
+    "dumps_route",
+    "schema",
+    "FORMAT",
+    "VERSION",
+    "MAX_BYTES",
+]
 
 #: The value of the ``format`` field of every route file.
 FORMAT = "phasepath route file"
@@ -89,8 +97,9 @@ def load_route(path: Path_, fmt: str | None = None) -> Route:
     except OSError as exc:
         raise _error(f"cannot read route file: {exc.strerror or exc}", name) from None
     if size > MAX_BYTES:
-        raise _error(f"route file is {size} bytes, more than the {MAX_BYTES} bytes phasepath "
-                     f"reads", name)
+        raise _error(
+            f"route file is {size} bytes, more than the {MAX_BYTES} bytes phasepath reads", name
+        )
     try:
         raw = p.read_bytes()
     except OSError as exc:
@@ -125,8 +134,9 @@ def loads_route(text: str, fmt: str | None = "json", *, source: str = "<text>") 
     try:
         data, lines = _read_json(text, source) if fmt == "json" else _read_yaml(text, source)
     except RecursionError:
-        raise _error("values are nested too deeply: a route file is a few levels deep",
-                     source) from None
+        raise _error(
+            "values are nested too deeply: a route file is a few levels deep", source
+        ) from None
     except ValueError as exc:  # e.g. an integer of more digits than Python converts
         if isinstance(exc, RouteFileError):
             raise
@@ -142,8 +152,9 @@ def dumps_route(route: Route, fmt: str = "json") -> str:
     if fmt == "yaml":
         import yaml
 
-        body = yaml.safe_dump(data, sort_keys=False, allow_unicode=True,
-                              default_flow_style=None, width=100)
+        body = yaml.safe_dump(
+            data, sort_keys=False, allow_unicode=True, default_flow_style=None, width=100
+        )
         return "# phasepath route file (YAML); see phasepath/data/route.schema.json\n" + body
     raise RouteFileError(f"unknown route file format {fmt!r}; choose 'json' or 'yaml'")
 
@@ -156,14 +167,17 @@ def save_route(route: Route, path: Path_, fmt: str | None = None) -> Path:
     p = Path(path)
     fmt = fmt or _SUFFIX.get(p.suffix.lower())
     if fmt is None:
-        raise RouteFileError(f"cannot tell the format of {str(path)!r} from its suffix "
-                             f"{p.suffix!r}: use .json, .yaml or .yml, or pass fmt=")
+        raise RouteFileError(
+            f"cannot tell the format of {str(path)!r} from its suffix "
+            f"{p.suffix!r}: use .json, .yaml or .yml, or pass fmt="
+        )
     text = dumps_route(route, fmt)
     try:
         p.write_text(text, encoding="utf-8")
     except OSError as exc:
         raise RouteFileError(
-            f"{str(path)}: cannot write route file: {exc.strerror or exc}") from None
+            f"{str(path)}: cannot write route file: {exc.strerror or exc}"
+        ) from None
     return p
 
 
@@ -187,7 +201,8 @@ def _document(route: Route) -> dict[str, Any]:
     elif not isinstance(sub, str):
         raise RouteFileError(
             f"the substance {sub!r} of this route is not a named substance: only routes of "
-            f"named substances can be saved")
+            f"named substances can be saved"
+        )
     doc: dict[str, Any] = {
         "format": FORMAT,
         "version": VERSION,
@@ -199,8 +214,14 @@ def _document(route: Route) -> dict[str, Any]:
         doc["elevation"] = _plain(d["elevation"], "elevation")
     doc["start"] = {k: _plain(v, f"start.{k}") for k, v in d["start"].items() if v is not None}
     doc["legs"] = [
-        {"kind": leg["kind"], **{k: _plain(v, f"legs[{i}].{k}") for k, v in leg.items()
-                                 if k != "kind" and v is not None}}
+        {
+            "kind": leg["kind"],
+            **{
+                k: _plain(v, f"legs[{i}].{k}")
+                for k, v in leg.items()
+                if k != "kind" and v is not None
+            },
+        }
         for i, leg in enumerate(d["legs"])
     ]
     return doc
@@ -224,8 +245,12 @@ def _plain(value: object, field: str) -> float | int | str:
 
 
 # -- reading -----------------------------------------------------------------------------------
-def _error(msg: str, source: str, field: str | None = None, line: int | None = None,
-           ) -> RouteFileError:
+def _error(
+    msg: str,
+    source: str,
+    field: str | None = None,
+    line: int | None = None,
+) -> RouteFileError:
     where = source + (f":{line}" if line is not None else "")
     what = f"field {field}: " if field else ""
     exc = RouteFileError(f"{where}: {what}{msg}")
@@ -259,8 +284,9 @@ def _read_json(text: str, source: str) -> tuple[Any, dict[tuple[Any, ...], int]]
     try:
         data = json.loads(text, object_pairs_hook=no_duplicates, parse_constant=no_constant)
     except json.JSONDecodeError as exc:
-        raise _error(f"not valid JSON: {exc.msg} (column {exc.colno})", source,
-                     line=exc.lineno) from None
+        raise _error(
+            f"not valid JSON: {exc.msg} (column {exc.colno})", source, line=exc.lineno
+        ) from None
     except _DuplicateKey as exc:
         lines = _json_lines(text, dupes_ok=True)
         line = next((ln for path, ln in lines.items() if path and path[-1] == exc.key), None)
@@ -339,8 +365,11 @@ def _read_yaml(text: str, source: str) -> tuple[Any, dict[tuple[Any, ...], int]]
     try:
         for event in yaml.parse(text, Loader=yaml.SafeLoader):
             if isinstance(event, yaml.AliasEvent):
-                raise _error("YAML aliases (*name) are not allowed in a route file", source,
-                             line=event.start_mark.line + 1)
+                raise _error(
+                    "YAML aliases (*name) are not allowed in a route file",
+                    source,
+                    line=event.start_mark.line + 1,
+                )
         node = yaml.compose(text, Loader=yaml.SafeLoader)
         data = yaml.safe_load(text)
     except yaml.MarkedYAMLError as exc:
@@ -358,8 +387,9 @@ def _read_yaml(text: str, source: str) -> tuple[Any, dict[tuple[Any, ...], int]]
     return data, lines
 
 
-def _yaml_lines(node: Any, path: tuple[Any, ...],
-                lines: dict[tuple[Any, ...], int]) -> tuple[str, int] | None:
+def _yaml_lines(
+    node: Any, path: tuple[Any, ...], lines: dict[tuple[Any, ...], int]
+) -> tuple[str, int] | None:
     import yaml
 
     lines.setdefault(path, node.start_mark.line + 1)
@@ -390,18 +420,22 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
         return _error(msg, source, _field_name(path) if path else None, lines.get(where))
 
     if not isinstance(data, dict):
-        raise fail(f"a route file holds one mapping of fields ({', '.join(_TOP)}), "
-                   f"not {_type_name(data)}")
+        raise fail(
+            f"a route file holds one mapping of fields ({', '.join(_TOP)}), not {_type_name(data)}"
+        )
     _keys(data, _TOP, _REQUIRED_TOP, (), fail)
     if data["format"] != FORMAT:
-        raise fail(f"{data['format']!r} is not a phasepath route file: expected {FORMAT!r}",
-                   "format")
+        raise fail(
+            f"{data['format']!r} is not a phasepath route file: expected {FORMAT!r}", "format"
+        )
     version = data["version"]
     if not isinstance(version, int) or isinstance(version, bool) or version < 1:
         raise fail(f"{version!r} is not a format version (a whole number, 1 or more)", "version")
     if version > VERSION:
-        raise fail(f"version {version} was written by a newer phasepath; this one reads "
-                   f"version {VERSION}", "version")
+        raise fail(
+            f"version {version} was written by a newer phasepath; this one reads version {VERSION}",
+            "version",
+        )
     for key in ("substance", "title", "notes"):
         if key == "substance" and isinstance(data[key], dict):
             continue  # a substance built from data (Substance.to_dict)
@@ -418,14 +452,17 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
     elif not data["substance"].strip():
         raise fail("is empty: name a substance, such as 'CO2' or 'water'", "substance")
     elevation = data.get("elevation")
-    if elevation is not None and (isinstance(elevation, bool)
-                                  or not isinstance(elevation, (int, float))
-                                  or not math.isfinite(elevation)):
+    if elevation is not None and (
+        isinstance(elevation, bool)
+        or not isinstance(elevation, (int, float))
+        or not math.isfinite(elevation)
+    ):
         raise fail(f"{elevation!r} is not a number (the site elevation in metres)", "elevation")
     start = data["start"]
     if not isinstance(start, dict):
-        raise fail(f"expected a mapping with T and p (or T and density), not "
-                   f"{_type_name(start)}", "start")
+        raise fail(
+            f"expected a mapping with T and p (or T and density), not {_type_name(start)}", "start"
+        )
     _keys(start, ("T", "p", "density"), ("T",), ("start",), fail)
     _one_of(start, ("p", "density"), ("start",), fail)
     for key in start:
@@ -434,9 +471,15 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
     if not isinstance(legs, list):
         raise fail(f"expected a list of legs, not {_type_name(legs)}", "legs")
     try:
-        route = Route(data["substance"], T=start["T"], p=start.get("p"),
-                      density=start.get("density"), elevation=elevation,
-                      title=data.get("title", ""), notes=data.get("notes", ""))
+        route = Route(
+            data["substance"],
+            T=start["T"],
+            p=start.get("p"),
+            density=start.get("density"),
+            elevation=elevation,
+            title=data.get("title", ""),
+            notes=data.get("notes", ""),
+        )
     except PhasePathError as exc:
         if type(exc).__name__ == "UnknownSubstanceError":
             raise fail(str(exc), "substance") from None
@@ -445,15 +488,23 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
         raise fail(str(exc), "start") from None
     for i, leg in enumerate(legs):
         if not isinstance(leg, dict):
-            raise fail(f"expected a mapping such as {{kind: isobar, T: 40 degC}}, not "
-                       f"{_type_name(leg)}", "legs", i)
+            raise fail(
+                f"expected a mapping such as {{kind: isobar, T: 40 degC}}, not {_type_name(leg)}",
+                "legs",
+                i,
+            )
         kind = leg.get("kind")
         if kind is None:
-            raise fail(f"missing value: every leg needs a kind ({', '.join(_LEG_TARGETS)})",
-                       "legs", i, "kind")
+            raise fail(
+                f"missing value: every leg needs a kind ({', '.join(_LEG_TARGETS)})",
+                "legs",
+                i,
+                "kind",
+            )
         if not isinstance(kind, str) or kind not in _LEG_TARGETS or kind not in LEG_KINDS:
-            raise fail(f"unknown leg kind {kind!r}; known: {', '.join(_LEG_TARGETS)}",
-                       "legs", i, "kind")
+            raise fail(
+                f"unknown leg kind {kind!r}; known: {', '.join(_LEG_TARGETS)}", "legs", i, "kind"
+            )
         targets = _LEG_TARGETS[kind]
         _keys(leg, ("kind",) + targets, ("kind",), ("legs", i), fail)
         target = _one_of(leg, targets, ("legs", i), fail)
@@ -465,25 +516,27 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
     return route
 
 
-def _one_of(obj: dict[str, Any], names: tuple[str, ...], path: tuple[Any, ...],
-            fail: Any) -> str:
+def _one_of(obj: dict[str, Any], names: tuple[str, ...], path: tuple[Any, ...], fail: Any) -> str:
     """The one field of ``names`` present in ``obj``; an error if none or several."""
     present = [n for n in names if n in obj]
     if len(present) == 1:
         return present[0]
     if not present:
         choice = " or ".join(names)
-        raise fail(f"missing value: give {choice}, such as {names[0]}: "
-                   f"{_EXAMPLE[names[0]]}", *path)
+        raise fail(f"missing value: give {choice}, such as {names[0]}: {_EXAMPLE[names[0]]}", *path)
     raise fail(f"give only one of {', '.join(present)}", *path, present[1])
 
 
-def _keys(obj: dict[str, Any], allowed: tuple[str, ...], required: tuple[str, ...],
-          path: tuple[Any, ...], fail: Any) -> None:
+def _keys(
+    obj: dict[str, Any],
+    allowed: tuple[str, ...],
+    required: tuple[str, ...],
+    path: tuple[Any, ...],
+    fail: Any,
+) -> None:
     for key, value in obj.items():
         if key not in allowed:
-            raise fail(f"unknown field {key!r}; allowed here: {', '.join(allowed)}",
-                       *path, key)
+            raise fail(f"unknown field {key!r}; allowed here: {', '.join(allowed)}", *path, key)
         if value is None:
             raise fail("missing value: the field is empty", *path, key)
     for key in required:
@@ -495,12 +548,14 @@ def _value(value: Any, name: str, path: tuple[Any, ...], fail: Any) -> None:
     """Check one value as written; the route parses the same text again."""
     if name == "until":
         if not isinstance(value, str) or not value.strip():
-            raise fail(f"{value!r} is not an event, such as 'fully vapor' or '5 K superheat'",
-                       *path)
+            raise fail(
+                f"{value!r} is not an event, such as 'fully vapor' or '5 K superheat'", *path
+            )
         return
     if isinstance(value, bool) or not isinstance(value, (int, float, str)):
-        raise fail(f"{value!r} is not a number or a value with a unit, such as "
-                   f"{_EXAMPLE[name]!r}", *path)
+        raise fail(
+            f"{value!r} is not a number or a value with a unit, such as {_EXAMPLE[name]!r}", *path
+        )
     if isinstance(value, float) and not math.isfinite(value):
         raise fail(f"{value!r} is not a finite number", *path)
     if name == "p" and isinstance(value, str) and value.strip().lower() == "ambient":
@@ -513,5 +568,10 @@ def _value(value: Any, name: str, path: tuple[Any, ...], fail: Any) -> None:
 
 
 def _type_name(value: Any) -> str:
-    return {dict: "a mapping", list: "a list", str: "text", type(None): "nothing",
-            bool: "true/false"}.get(type(value), f"a {type(value).__name__}")
+    return {
+        dict: "a mapping",
+        list: "a list",
+        str: "text",
+        type(None): "nothing",
+        bool: "true/false",
+    }.get(type(value), f"a {type(value).__name__}")

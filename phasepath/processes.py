@@ -41,11 +41,18 @@ _SAMPLES = 24  # states sampled along a curved leg before refining each change o
 _REL = 1e-12  # relative width of the bracket at which a change of phase is located
 
 
+def _v(props: tuple[float, float, float, str], i: int) -> float:
+    """Property i (0: h, 1: s, 2: rho) of a (h, s, rho, model) tuple."""
+    return float(props[i])
+
+
 def state_key(s: StatePoint) -> tuple[str, str | None]:
     return s.phase, s.form
 
 
-def single_state(sub: Substance, T: float, p: float, phase: str, form: str | None = None) -> StatePoint:
+def single_state(
+    sub: Substance, T: float, p: float, phase: str, form: str | None = None
+) -> StatePoint:
     """A single-phase state with h, s, rho where a model covers it (else None, reason in model)."""
     try:
         h, s, rho, model = phase_props(sub, T, p, phase, form)
@@ -54,8 +61,16 @@ def single_state(sub: Substance, T: float, p: float, phase: str, form: str | Non
     return StatePoint(T, p, phase, form, h=h, s=s, rho=rho, model=model)
 
 
-def _mixture(T: float, p: float, phases: str, form: str | None, a: tuple[float, float, float, str],
-             b: tuple[float, float, float, str], frac_b: float, solid_first: bool) -> StatePoint:
+def _mixture(
+    T: float,
+    p: float,
+    phases: str,
+    form: str | None,
+    a: tuple[float, float, float, str],
+    b: tuple[float, float, float, str],
+    frac_b: float,
+    solid_first: bool,
+) -> StatePoint:
     """Lever-rule mixture of phase a (fraction 1 - frac_b) and phase b (fraction frac_b)."""
     h = (1 - frac_b) * a[0] + frac_b * b[0]
     s = (1 - frac_b) * a[1] + frac_b * b[1]
@@ -65,15 +80,26 @@ def _mixture(T: float, p: float, phases: str, form: str | None, a: tuple[float, 
     solid = (1 - frac_b) if solid_first else None
     if phases == "liquid+vapor":
         vapor, solid = frac_b, None
-    return StatePoint(T, p, phases, form, vapor_fraction=vapor, solid_fraction=solid,
-                      h=h, s=s, rho=1.0 / v, model=model)
+    return StatePoint(
+        T,
+        p,
+        phases,
+        form,
+        vapor_fraction=vapor,
+        solid_fraction=solid,
+        h=h,
+        s=s,
+        rho=1.0 / v,
+        model=model,
+    )
 
 
 def _T_on(b: Boundary, p: float) -> float:
     roots = b.temperatures_at(p)
     if not roots:
-        raise OutOfRangeError(f"p = {p!r} Pa is outside the {b.label} curve "
-                              f"({b.T_min:g} K to {b.T_max:g} K)")
+        raise OutOfRangeError(
+            f"p = {p!r} Pa is outside the {b.label} curve ({b.T_min:g} K to {b.T_max:g} K)"
+        )
     return roots[0][0]
 
 
@@ -102,8 +128,16 @@ def _solve_T(f: Callable[[float], float], lo: float, hi: float, what: str) -> fl
     return float(brentq(f, lo, hi, xtol=1e-10, rtol=1e-13))
 
 
-def _fluid_by_flash(sub: Substance, p: float, prop: str, value: float, lo: float, hi: float,
-                    what: str, side: str | None = None) -> StatePoint:
+def _fluid_by_flash(
+    sub: Substance,
+    p: float,
+    prop: str,
+    value: float,
+    lo: float,
+    hi: float,
+    what: str,
+    side: str | None = None,
+) -> StatePoint:
     """A single-phase fluid state: CoolProp's own (p, h) or (p, s) flash, checked; else brentq.
 
     ``side`` ("liquid" or "vapor") is the side of the vapor-pressure curve the state is on,
@@ -117,12 +151,13 @@ def _fluid_by_flash(sub: Substance, p: float, prop: str, value: float, lo: float
     try:
         T, h, s, rho, q = sub.eos.flash(prop, p, value)
         if lo <= T <= hi and not (0.0 <= q <= 1.0):
-            return StatePoint(T, p, phase_of(T), None, h=h, s=s, rho=rho,
-                              model="reference EOS (CoolProp)")
+            return StatePoint(
+                T, p, phase_of(T), None, h=h, s=s, rho=rho, model="reference EOS (CoolProp)"
+            )
     except PhasePathError:
         pass
     i = _IDX[prop]
-    T = _solve_T(lambda T: phase_props(sub, T, p, phase_of(T))[i] - value, lo, hi, what)
+    T = _solve_T(lambda T: _v(phase_props(sub, T, p, phase_of(T)), i) - value, lo, hi, what)
     return single_state(sub, T, p, phase_of(T))
 
 
@@ -152,42 +187,47 @@ def flash_p(sub: Substance, p: float, prop: str, value: float) -> StatePoint:
         T_s = _T_on(sub.sublimation, p)
         form = sub.sublimation.solid_form
         vap = phase_props(sub, T_s, p, "vapor")
-        if value >= vap[i]:
-            T = _solve_T(lambda T: phase_props(sub, T, p, "vapor")[i] - value, T_s, sub.T_max, what)
+        if value >= _v(vap, i):
+            T = _solve_T(
+                lambda T: _v(phase_props(sub, T, p, "vapor"), i) - value, T_s, sub.T_max, what
+            )
             return single_state(sub, T, p, "vapor")
         sol = phase_props(sub, T_s, p, "solid", form)
-        if value >= sol[i]:
-            y = (vap[i] - value) / (vap[i] - sol[i])
+        if value >= _v(sol, i):
+            y = (_v(vap, i) - value) / (_v(vap, i) - _v(sol, i))
             return _mixture(T_s, p, "solid+vapor", form, sol, vap, 1.0 - y, solid_first=True)
-        T = _solve_T(lambda T: phase_props(sub, T, p, "solid", form)[i] - value,
-                     sub.T_min, T_s, what)
+        T = _solve_T(
+            lambda T: _v(phase_props(sub, T, p, "solid", form), i) - value, sub.T_min, T_s, what
+        )
         return single_state(sub, T, p, "solid", form)
     upper = sub.T_max
     if p < p_c:
         assert sub.eos is not None
         T_s = sub.eos.T_sat(p)
-        liq, vap = sub.eos.saturated(T_s)
-        if value > vap[i]:
+        sat_l, sat_v = sub.eos.saturated(T_s)
+        lq = (*sat_l, "reference EOS (CoolProp)")
+        vp = (*sat_v, "reference EOS (CoolProp)")
+        if value > _v(vp, i):
             return _fluid_by_flash(sub, p, prop, value, T_s, sub.T_max, what, "vapor")
-        if value > liq[i] or (value == liq[i] and value == vap[i]):
-            x = (value - liq[i]) / (vap[i] - liq[i])
-            lq = (*liq, "reference EOS (CoolProp)")
-            vp = (*vap, "reference EOS (CoolProp)")
+        if value > _v(lq, i) or (value == _v(lq, i) and value == _v(vp, i)):
+            x = (value - _v(lq, i)) / (_v(vp, i) - _v(lq, i))
             return _mixture(T_s, p, "liquid+vapor", None, lq, vp, x, solid_first=False)
         upper = T_s
     melt = _melting_T(sub, p)
     T_low = melt[0] if melt else T_t
     fluid_low = phase_props(sub, T_low, p, _fluid_phase(sub, T_low * (1 + 1e-12), p))
-    if value >= fluid_low[i] or melt is None:
+    if value >= _v(fluid_low, i) or melt is None:
         side = "liquid" if p < p_c else None
         return _fluid_by_flash(sub, p, prop, value, T_low, upper, what, side)
     form = melt[1]
     sol = phase_props(sub, T_low, p, "solid", form)
-    if value >= sol[i]:
-        y = (fluid_low[i] - value) / (fluid_low[i] - sol[i])
+    if value >= _v(sol, i):
+        y = (_v(fluid_low, i) - value) / (_v(fluid_low, i) - _v(sol, i))
         fl = _fluid_phase(sub, T_low * (1 + 1e-12), p)
         return _mixture(T_low, p, f"solid+{fl}", form, sol, fluid_low, 1.0 - y, solid_first=True)
-    T = _solve_T(lambda T: phase_props(sub, T, p, "solid", form)[i] - value, sub.T_min, T_low, what)
+    T = _solve_T(
+        lambda T: _v(phase_props(sub, T, p, "solid", form), i) - value, sub.T_min, T_low, what
+    )
     return single_state(sub, T, p, "solid", form)
 
 
@@ -207,8 +247,15 @@ def flash_Tv(sub: Substance, T: float, v: float) -> StatePoint:
         p_s = sub.sublimation.p_of_T(T)
         vap = phase_props(sub, T, p_s, "vapor")
         if rho <= vap[2]:
-            p = float(brentq(lambda p: phase_props(sub, T, p, "vapor")[2] - rho,
-                             p_s * 1e-12, p_s, xtol=1e-300, rtol=1e-13))
+            p = float(
+                brentq(
+                    lambda p: phase_props(sub, T, p, "vapor")[2] - rho,
+                    p_s * 1e-12,
+                    p_s,
+                    xtol=1e-300,
+                    rtol=1e-13,
+                )
+            )
             return single_state(sub, T, p, "vapor")
         form = sub.sublimation.solid_form
         sol = phase_props(sub, T, p_s, "solid", form)
@@ -218,12 +265,12 @@ def flash_Tv(sub: Substance, T: float, v: float) -> StatePoint:
         y = (1 / vap[2] - v) / (1 / vap[2] - 1 / sol[2])
         return _mixture(T, p_s, "solid+vapor", form, sol, vap, 1.0 - y, solid_first=True)
     if T <= T_c:
-        liq, vap = sub.eos.saturated(T)
-        if liq[2] > rho > vap[2]:
-            x = (v - 1 / liq[2]) / (1 / vap[2] - 1 / liq[2])
+        sat_l, sat_v = sub.eos.saturated(T)
+        if sat_l[2] > rho > sat_v[2]:
+            x = (v - 1 / sat_l[2]) / (1 / sat_v[2] - 1 / sat_l[2])
             p = sub.vapor.p_of_T(T) if sub.vapor is not None else math.nan
-            lq = (*liq, "reference EOS (CoolProp)")
-            vp = (*vap, "reference EOS (CoolProp)")
+            lq = (*sat_l, "reference EOS (CoolProp)")
+            vp = (*sat_v, "reference EOS (CoolProp)")
             return _mixture(T, p, "liquid+vapor", None, lq, vp, x, solid_first=False)
     p, h, s = sub.eos.state_DT(rho, T)
     if p > sub.p_max:
@@ -233,14 +280,20 @@ def flash_Tv(sub: Substance, T: float, v: float) -> StatePoint:
         )
     phase, form = sub.classify(T, p)
     if phase == "solid":
-        raise OutOfRangeError(f"{what}: the sealed contents would freeze (p = {p:.6g} Pa); "
-                              f"a solid-liquid split at constant volume is not modelled")
+        raise OutOfRangeError(
+            f"{what}: the sealed contents would freeze (p = {p:.6g} Pa); "
+            f"a solid-liquid split at constant volume is not modelled"
+        )
     return StatePoint(T, p, phase, form, h=h, s=s, rho=rho, model="reference EOS (CoolProp)")
 
 
-def trace(state_at: Callable[[float], StatePoint], x0: float, x1: float, geometric: bool,
-          first: StatePoint | None = None
-          ) -> tuple[list[StatePoint], list[tuple[StatePoint, StatePoint, int]]]:
+def trace(
+    state_at: Callable[[float], StatePoint],
+    x0: float,
+    x1: float,
+    geometric: bool,
+    first: StatePoint | None = None,
+) -> tuple[list[StatePoint], list[tuple[StatePoint, StatePoint, int]]]:
     """Sample a curved leg and locate every change of phase along it.
 
     ``state_at(x)`` gives the state at the moving coordinate x. Returns the sampled states (for
@@ -283,8 +336,9 @@ def describe_change(before: str, after: str) -> str:
         ("liquid+vapor", "vapor"): "dew point: the last liquid has vaporized",
         ("vapor", "liquid+vapor"): "dew point: liquid starts to form",
         ("liquid+vapor", "liquid"): "bubble point: no vapor left (liquid-full)",
-        ("liquid+vapor", "solid+vapor"): ("triple point: the liquid turns to solid and vapor "
-                                           "(latent heat shown: fusion)"),
+        ("liquid+vapor", "solid+vapor"): (
+            "triple point: the liquid turns to solid and vapor (latent heat shown: fusion)"
+        ),
         ("solid+vapor", "liquid+vapor"): "triple point: the solid melts",
         ("vapor", "solid+vapor"): "solid starts to deposit from the vapor",
         ("solid+vapor", "vapor"): "the last solid has sublimed",
@@ -296,5 +350,3 @@ def describe_change(before: str, after: str) -> str:
         ("solid", "solid+liquid"): "melting starts",
     }
     return table.get((before, after), "")
-
-

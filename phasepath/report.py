@@ -14,19 +14,43 @@ if TYPE_CHECKING:  # pragma: no cover
     from .route import Route
     from .substances import Substance
 
-__all__ = ["Crossing", "StatePoint", "LegSummary", "Hazard", "Report", "CROSSING_KINDS",
-           "UNIT_LABELS"]
+__all__ = [
+    "Crossing",
+    "StatePoint",
+    "LegSummary",
+    "Hazard",
+    "Report",
+    "CROSSING_KINDS",
+    "UNIT_LABELS",
+]
 
 #: Every kind of crossing the analyser reports.
 CROSSING_KINDS = (
-    "melting", "freezing", "vaporization", "condensation", "sublimation", "deposition",
-    "supercritical-entry", "supercritical-exit",
+    "melting",
+    "freezing",
+    "vaporization",
+    "condensation",
+    "sublimation",
+    "deposition",
+    "supercritical-entry",
+    "supercritical-exit",
 )
 
 #: How each display unit is written in column headers.
-UNIT_LABELS = {"degC": "°C", "degF": "°F", "K": "K", "Pa": "Pa", "kPa": "kPa", "bar": "bar",
-               "MPa": "MPa", "psi": "psi", "atm": "atm", "J/kg": "J/kg", "kJ/kg": "kJ/kg",
-               "Btu/lb": "Btu/lb"}
+UNIT_LABELS = {
+    "degC": "°C",
+    "degF": "°F",
+    "K": "K",
+    "Pa": "Pa",
+    "kPa": "kPa",
+    "bar": "bar",
+    "MPa": "MPa",
+    "psi": "psi",
+    "atm": "atm",
+    "J/kg": "J/kg",
+    "kJ/kg": "kJ/kg",
+    "Btu/lb": "Btu/lb",
+}
 
 
 @dataclass(frozen=True)
@@ -70,8 +94,10 @@ class Crossing:
 
     def describe(self) -> str:
         """One line for a human reader."""
-        return (f"leg {self.step}: {self.kind} ({self.from_phase} -> {self.to_phase}) at "
-                f"T = {self.T:.6g} K, p = {self.p:.6g} Pa")
+        return (
+            f"leg {self.step}: {self.kind} ({self.from_phase} -> {self.to_phase}) at "
+            f"T = {self.T:.6g} K, p = {self.p:.6g} Pa"
+        )
 
 
 @dataclass(frozen=True)
@@ -124,8 +150,9 @@ class LegSummary:
 class Report:
     """The analysed route: ``crossings`` (route order), ``legs`` (one per leg) and notes."""
 
-    def __init__(self, route: Route, crossings: list[Crossing], legs: list[LegSummary],
-                 notes: list[str]) -> None:
+    def __init__(
+        self, route: Route, crossings: list[Crossing], legs: list[LegSummary], notes: list[str]
+    ) -> None:
         self.route = route
         self.substance: Substance = route.substance
         self.crossings = list(crossings)
@@ -133,15 +160,22 @@ class Report:
         self.notes = list(notes)
 
     def __repr__(self) -> str:
-        return (f"<Report {self.substance.name}: {len(self.legs)} legs, "
-                f"{len(self.crossings)} crossings>")
+        return (
+            f"<Report {self.substance.name}: {len(self.legs)} legs, "
+            f"{len(self.crossings)} crossings>"
+        )
 
     def __eq__(self, other: object) -> bool:
-        return (isinstance(other, Report) and self.crossings == other.crossings
-                and self.legs == other.legs)
+        return (
+            isinstance(other, Report)
+            and self.crossings == other.crossings
+            and self.legs == other.legs
+        )
 
     # -- tables --------------------------------------------------------------------------------
-    def table(self, T_unit: str = "K", p_unit: str = "Pa", energy_unit: str = "kJ/kg") -> pd.DataFrame:
+    def table(
+        self, T_unit: str = "K", p_unit: str = "Pa", energy_unit: str = "kJ/kg"
+    ) -> pd.DataFrame:
         """One row per crossing, with the units in the column names.
 
         Parameters
@@ -155,25 +189,43 @@ class Report:
         tl, pl, el = _labels(T_unit, p_unit, energy_unit)
         rows = []
         for c in self.crossings:
-            rows.append({
-                "leg": c.step,
-                "kind": c.kind,
-                "from": _phase_text(c.from_phase, c.from_form),
-                "to": _phase_text(c.to_phase, c.to_form),
-                f"T [{tl}]": convert(c.T, "K", T_unit, "temperature"),
-                f"p [{pl}]": convert(c.p, "Pa", p_unit, "pressure"),
-                f"latent heat [{el}]": (None if c.latent_heat is None
-                                        else convert(c.latent_heat, "J/kg", energy_unit, "energy")),
-                "boundary": c.boundary,
-                "latent heat model": c.latent_heat_model or c.latent_heat_note,
-                "detail": c.detail,
-                "hazards": "; ".join(h.kind for h in c.hazards),
-            })
-        cols = ["leg", "kind", "from", "to", f"T [{tl}]", f"p [{pl}]", f"latent heat [{el}]",
-                "boundary", "latent heat model", "detail", "hazards"]
+            rows.append(
+                {
+                    "leg": c.step,
+                    "kind": c.kind,
+                    "from": _phase_text(c.from_phase, c.from_form),
+                    "to": _phase_text(c.to_phase, c.to_form),
+                    f"T [{tl}]": convert(c.T, "K", T_unit, "temperature"),
+                    f"p [{pl}]": convert(c.p, "Pa", p_unit, "pressure"),
+                    f"latent heat [{el}]": (
+                        None
+                        if c.latent_heat is None
+                        else convert(c.latent_heat, "J/kg", energy_unit, "energy")
+                    ),
+                    "boundary": c.boundary,
+                    "latent heat model": c.latent_heat_model or c.latent_heat_note,
+                    "detail": c.detail,
+                    "hazards": "; ".join(h.kind for h in c.hazards),
+                }
+            )
+        cols = [
+            "leg",
+            "kind",
+            "from",
+            "to",
+            f"T [{tl}]",
+            f"p [{pl}]",
+            f"latent heat [{el}]",
+            "boundary",
+            "latent heat model",
+            "detail",
+            "hazards",
+        ]
         return pd.DataFrame(rows, columns=cols)
 
-    def legs_table(self, T_unit: str = "K", p_unit: str = "Pa", energy_unit: str = "kJ/kg") -> pd.DataFrame:
+    def legs_table(
+        self, T_unit: str = "K", p_unit: str = "Pa", energy_unit: str = "kJ/kg"
+    ) -> pd.DataFrame:
         """One row per leg: kind, start and end states, heat and work per kg."""
         import pandas as pd
 
@@ -184,22 +236,24 @@ class Report:
 
         rows = []
         for leg in self.legs:
-            rows.append({
-                "leg": leg.step,
-                "kind": leg.kind,
-                f"T start [{tl}]": convert(leg.start.T, "K", T_unit, "temperature"),
-                f"p start [{pl}]": convert(leg.start.p, "Pa", p_unit, "pressure"),
-                "phase start": _phase_text(leg.start.phase, leg.start.form),
-                f"T end [{tl}]": convert(leg.end.T, "K", T_unit, "temperature"),
-                f"p end [{pl}]": convert(leg.end.p, "Pa", p_unit, "pressure"),
-                "phase end": _phase_text(leg.end.phase, leg.end.form),
-                "vapor fraction end": leg.end.vapor_fraction,
-                "solid fraction end": leg.end.solid_fraction,
-                f"heat [{el}]": e(leg.heat),
-                f"work [{el}]": e(leg.work),
-                "hazards": "; ".join(f"{h.kind}: {h.reason}" for h in leg.hazards),
-                "note": leg.note if not leg.event else f"{leg.event}; {leg.note}",
-            })
+            rows.append(
+                {
+                    "leg": leg.step,
+                    "kind": leg.kind,
+                    f"T start [{tl}]": convert(leg.start.T, "K", T_unit, "temperature"),
+                    f"p start [{pl}]": convert(leg.start.p, "Pa", p_unit, "pressure"),
+                    "phase start": _phase_text(leg.start.phase, leg.start.form),
+                    f"T end [{tl}]": convert(leg.end.T, "K", T_unit, "temperature"),
+                    f"p end [{pl}]": convert(leg.end.p, "Pa", p_unit, "pressure"),
+                    "phase end": _phase_text(leg.end.phase, leg.end.form),
+                    "vapor fraction end": leg.end.vapor_fraction,
+                    "solid fraction end": leg.end.solid_fraction,
+                    f"heat [{el}]": e(leg.heat),
+                    f"work [{el}]": e(leg.work),
+                    "hazards": "; ".join(f"{h.kind}: {h.reason}" for h in leg.hazards),
+                    "note": leg.note if not leg.event else f"{leg.event}; {leg.note}",
+                }
+            )
         return pd.DataFrame(rows)
 
     def to_dict(self) -> dict[str, Any]:
@@ -215,15 +269,16 @@ class Report:
         title = html.escape(self.route.title or f"Route for {self.substance.name}")
         parts = [f"<div class='phasepath-report'><h4>{title}</h4>"]
         if self.crossings:
-            parts.append(self.table("K", "bar").to_html(index=False, float_format=_fmt,
-                                                        na_rep="—"))
+            parts.append(self.table("K", "bar").to_html(index=False, float_format=_fmt, na_rep="—"))
         else:
             parts.append("<p>No phase boundary is crossed.</p>")
-        parts.append(self.legs_table("K", "bar").to_html(index=False, float_format=_fmt,
-                                                         na_rep="—"))
+        parts.append(
+            self.legs_table("K", "bar").to_html(index=False, float_format=_fmt, na_rep="—")
+        )
         if self.notes:
-            parts.append("<ul>" + "".join(f"<li>{html.escape(n)}</li>" for n in self.notes)
-                         + "</ul>")
+            parts.append(
+                "<ul>" + "".join(f"<li>{html.escape(n)}</li>" for n in self.notes) + "</ul>"
+            )
         parts.append("</div>")
         return "".join(parts)
 
@@ -236,12 +291,15 @@ def _labels(T_unit: str, p_unit: str, energy_unit: str) -> tuple[str, str, str]:
     from .errors import UnitError
     from .units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS
 
-    for u, allowed, what in ((T_unit, TEMPERATURE_UNITS, "temperature"),
-                             (p_unit, PRESSURE_UNITS, "pressure"),
-                             (energy_unit, ENERGY_UNITS, "energy")):
+    for u, allowed, what in (
+        (T_unit, TEMPERATURE_UNITS, "temperature"),
+        (p_unit, PRESSURE_UNITS, "pressure"),
+        (energy_unit, ENERGY_UNITS, "energy"),
+    ):
         if u not in allowed:
-            raise UnitError(f"display unit {u!r} for {what} is not offered; choose one of "
-                            f"{', '.join(allowed)}")
+            raise UnitError(
+                f"display unit {u!r} for {what} is not offered; choose one of {', '.join(allowed)}"
+            )
     return UNIT_LABELS[T_unit], UNIT_LABELS[p_unit], UNIT_LABELS[energy_unit]
 
 

@@ -47,8 +47,13 @@ def _reraise(exc: PhasePathError, where: str, given: object) -> PhasePathError:
     return new
 
 
-def _parse(kind: str, value: object, where: str, elevation: float | None = None,
-           sub: Substance | None = None) -> float:
+def _parse(
+    kind: str,
+    value: object,
+    where: str,
+    elevation: float | None = None,
+    sub: Substance | None = None,
+) -> float:
     try:
         if kind == "p" and isinstance(value, str) and value.strip().lower() == "ambient":
             return ambient_pressure(0.0 if elevation is None else elevation)
@@ -130,8 +135,9 @@ class Route:
             if not rho > 0:
                 raise OutOfRangeError(f"start density {density!r} is not positive")
             self._check(T0, self.substance.triple[1], "start state", given, T_only=True)
-            state = self._guard(lambda: _processes().flash_Tv(self.substance, T0, 1.0 / rho),
-                                "start state", given)
+            state = self._guard(
+                lambda: _processes().flash_Tv(self.substance, T0, 1.0 / rho), "start state", given
+            )
             self.start = Leg("start", state.T, state.p, given, state=state)
         else:
             p0 = _parse("p", p, "start pressure", elevation, sub=self.substance)
@@ -183,7 +189,9 @@ class Route:
             p1 = _parse("p", p, f"{where} pressure", self.elevation, sub=self.substance)
             given = {"p": p}
             self._check(start.T, p1, f"{where} end state", given, p_only=True)
-            end = self._guard(lambda: _isochore_to_p(sub, start, rho, p1), f"{where} end state", given)
+            end = self._guard(
+                lambda: _isochore_to_p(sub, start, rho, p1), f"{where} end state", given
+            )
         return self._add(Leg("isochore", end.T, end.p, given, state=end))
 
     def isenthalp(self, p: object) -> Route:
@@ -213,8 +221,9 @@ class Route:
         given = {"p": p}
         self._check(start.T, p1, f"{where} end state", given, p_only=True)
         sub = self.substance
-        end = self._guard(lambda: _processes().flash_p(sub, p1, prop, value),
-                          f"{where} end state", given)
+        end = self._guard(
+            lambda: _processes().flash_p(sub, p1, prop, value), f"{where} end state", given
+        )
         return self._add(Leg(kind, end.T, end.p, given, state=end))
 
     def _until(self, kind: str, until: str, target: object, where: str) -> Route:
@@ -226,15 +235,18 @@ class Route:
         T, p, phase, event = _resolve_event(sub, kind, end.T, end.p, until, where)
         state = None
         if phase is not None:
-            state = self._guard(lambda: _processes().single_state(sub, T, p, phase),
-                                f"{where} end state", given)
+            state = self._guard(
+                lambda: _processes().single_state(sub, T, p, phase), f"{where} end state", given
+            )
         self._check(T, p, f"{where} end state", given)
         return self._add(Leg(kind, T, p, given, state=state, event=event))
 
     def _need(self, value: float | None, where: str, start: StatePoint) -> float:
         if value is None:
-            raise RouteError(f"{where}: the state it starts from (T = {start.T:.6g} K, "
-                             f"p = {start.p:.6g} Pa, {start.phase}) has no model: {start.model}")
+            raise RouteError(
+                f"{where}: the state it starts from (T = {start.T:.6g} K, "
+                f"p = {start.p:.6g} Pa, {start.phase}) has no model: {start.model}"
+            )
         return value
 
     def _guard(self, make: Any, where: str, given: dict[str, Any]) -> StatePoint:
@@ -268,8 +280,15 @@ class Route:
         self.legs.append(leg)
         return self
 
-    def _check(self, T: float, p: float, where: str, given: dict[str, Any],
-               T_only: bool = False, p_only: bool = False) -> None:
+    def _check(
+        self,
+        T: float,
+        p: float,
+        where: str,
+        given: dict[str, Any],
+        T_only: bool = False,
+        p_only: bool = False,
+    ) -> None:
         sub = self.substance
         try:
             if T_only:  # only T is known yet: check it against the temperature range
@@ -327,7 +346,7 @@ class Route:
             out = Route(self.substance, T=last.T, density=last.state.rho, title=self.title)
         else:
             out = Route(self.substance, T=corners[-1][0], p=corners[-1][1], title=self.title)
-        for leg, (T, p) in zip(reversed(self.legs), reversed(corners[:-1])):
+        for leg, (T, p) in zip(reversed(self.legs), reversed(corners[:-1]), strict=False):
             if leg.kind in ("isobar", "isochore"):
                 out.add(leg.kind, T=T)
             else:
@@ -349,9 +368,15 @@ class Route:
     def from_dict(cls, data: dict[str, Any]) -> Route:
         """Build a route from :meth:`to_dict` output."""
         start = data.get("start", {})
-        route = cls(data["substance"], T=start.get("T"), p=start.get("p"),
-                    density=start.get("density"), elevation=data.get("elevation"),
-                    title=data.get("title", ""), notes=data.get("notes", ""))
+        route = cls(
+            data["substance"],
+            T=start.get("T"),
+            p=start.get("p"),
+            density=start.get("density"),
+            elevation=data.get("elevation"),
+            title=data.get("title", ""),
+            notes=data.get("notes", ""),
+        )
         for leg in data.get("legs", []):
             leg = dict(leg)
             route.add(leg.pop("kind"), **leg)
@@ -396,6 +421,7 @@ def _isochore_to_p(sub: Substance, start: StatePoint, rho: float, p1: float) -> 
             return pr.flash_Tv(sub, T, 1.0 / rho).p - p1
         except OutOfRangeError:
             return 1e300  # beyond the models: too high a pressure
+
     lo, hi = (start.T, sub.T_max) if p1 > start.p else (sub.T_min, start.T)
     if gap(lo) * gap(hi) > 0:
         raise OutOfRangeError(
@@ -406,20 +432,25 @@ def _isochore_to_p(sub: Substance, start: StatePoint, rho: float, p1: float) -> 
     return pr.flash_Tv(sub, T1, 1.0 / rho)
 
 
-def _resolve_event(sub: Substance, kind: str, T: float, p: float, until: str, where: str
-                   ) -> tuple[float, float, str | None, str]:
+def _resolve_event(
+    sub: Substance, kind: str, T: float, p: float, until: str, where: str
+) -> tuple[float, float, str | None, str]:
     """(T, p, end phase or None, event text) of a leg that ends on an event."""
     text = until.strip().lower() if isinstance(until, str) else ""
     m = _DELTA.match(text)
     if text not in EVENTS and not m:
-        raise RouteError(f"{where}: unknown event {until!r}; known: {', '.join(EVENTS)}, "
-                         f"'N K superheat', 'N K subcooling'")
+        raise RouteError(
+            f"{where}: unknown event {until!r}; known: {', '.join(EVENTS)}, "
+            f"'N K superheat', 'N K subcooling'"
+        )
     T_t, p_t = sub.triple
     T_c, p_c = sub.critical
     vapor = sub.vapor
     if text == "first solid" and sub.classify(T, p)[0] == "solid":
-        raise RouteError(f"{where}: {until!r} cannot be reached: the leg starts as solid "
-                         f"(T = {T:.6g} K, p = {p:.6g} Pa)")
+        raise RouteError(
+            f"{where}: {until!r} cannot be reached: the leg starts as solid "
+            f"(T = {T:.6g} K, p = {p:.6g} Pa)"
+        )
     if text == "first solid":
         if kind == "isobar":
             from .processes import _melting_T, _T_on
@@ -434,8 +465,11 @@ def _resolve_event(sub: Substance, kind: str, T: float, p: float, until: str, wh
                     raise RouteError(f"{where}: no melting curve of {sub.name} at p = {p:.6g} Pa")
                 T1 = melt[0]
             return T1, p, None, f"first solid at T = {T1:.6g} K"
-        curves = [b for b in sub.melting if b.T_min <= T <= b.T_max] if T >= T_t else (
-            [sub.sublimation] if sub.sublimation is not None else [])
+        curves = (
+            [b for b in sub.melting if b.T_min <= T <= b.T_max]
+            if T >= T_t
+            else ([sub.sublimation] if sub.sublimation is not None else [])
+        )
         if not curves:
             raise RouteError(f"{where}: no solid boundary of {sub.name} at T = {T:.6g} K")
         p1 = min(b.p_of_T(T) for b in curves)
@@ -469,8 +503,16 @@ def _resolve_event(sub: Substance, kind: str, T: float, p: float, until: str, wh
     return T, p_s, phase, f"{text} at p = {p_s:.6g} Pa"
 
 
-def _check_side(until: str, text: str, start: float, sat: float, liquid_side: bool, name: str,
-                unit: str, where: str) -> None:
+def _check_side(
+    until: str,
+    text: str,
+    start: float,
+    sat: float,
+    liquid_side: bool,
+    name: str,
+    unit: str,
+    where: str,
+) -> None:
     """Refuse an event the leg moves away from: "first liquid" from the liquid side, etc.
 
     ``liquid_side`` tells where the leg starts: below the saturation temperature on an isobar,

@@ -17,8 +17,13 @@ __all__ = ["water_boundaries", "sublimation_curve_for", "SUBLIMATION_CURVES"]
 
 #: substance -> (module, function, its triple point (T [K], p [Pa]), lowest T [K], source id).
 SUBLIMATION_CURVES: dict[str, tuple[str, str, tuple[float, float], float, str]] = {
-    "Water": ("water_iapws", "sublimation_pressure_ice_ih", (w.T_TRIPLE, w.P_TRIPLE), 50.0,
-              w.SOURCE),
+    "Water": (
+        "water_iapws",
+        "sublimation_pressure_ice_ih",
+        (w.T_TRIPLE, w.P_TRIPLE),
+        50.0,
+        w.SOURCE,
+    ),
 }
 
 
@@ -26,13 +31,21 @@ def _register() -> None:
     from .correlations import co2, sublimation_eos
 
     SUBLIMATION_CURVES["CarbonDioxide"] = (
-        "co2", "sublimation_pressure_co2", (co2.T_TRIPLE, co2.P_TRIPLE), co2.SUBLIMATION_T_MIN,
+        "co2",
+        "sublimation_pressure_co2",
+        (co2.T_TRIPLE, co2.P_TRIPLE),
+        co2.SUBLIMATION_T_MIN,
         co2.SOURCE_CURVES,
     )
     for name, key in (("Nitrogen", "nitrogen"), ("Argon", "argon"), ("Methane", "methane")):
         T_t, p_t, T_min, _, _, source = sublimation_eos.CURVES[key]
-        SUBLIMATION_CURVES[name] = ("sublimation_eos", f"sublimation_pressure_{key}", (T_t, p_t),
-                                    T_min, source)
+        SUBLIMATION_CURVES[name] = (
+            "sublimation_eos",
+            f"sublimation_pressure_{key}",
+            (T_t, p_t),
+            T_min,
+            source,
+        )
 
 
 _register()
@@ -74,8 +87,14 @@ def water_boundaries(p_t: float) -> tuple[list[Boundary], Boundary]:
     }
     melting = [
         Boundary(
-            "melting", f"melting (ice {form})", lo, hi, w.SOURCE, funcs[form],
-            solid_form=form, solid_side="below" if form == "Ih" else "above",
+            "melting",
+            f"melting (ice {form})",
+            lo,
+            hi,
+            w.SOURCE,
+            funcs[form],
+            solid_form=form,
+            solid_side="below" if form == "Ih" else "above",
         )
         for form, lo, hi in w.ICE_BRANCHES
     ]

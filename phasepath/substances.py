@@ -15,8 +15,8 @@ import math
 import numbers
 import re
 import threading
-from collections.abc import Callable, Mapping
-from functools import lru_cache
+from collections.abc import Mapping
+from functools import cache, lru_cache
 from typing import Any
 
 from . import bibliography
@@ -36,14 +36,32 @@ NO_SUBLIMATION = "solid or vapor: no published sublimation curve"
 
 # Common names that CoolProp's alias lists do not already hold.
 _EXTRA_ALIASES = {
-    "water": "Water", "steam": "Water", "h2o": "Water",
-    "carbon dioxide": "CarbonDioxide", "carbon monoxide": "CarbonMonoxide",
-    "nitrogen": "Nitrogen", "argon": "Argon", "methane": "Methane", "oxygen": "Oxygen",
-    "hydrogen": "Hydrogen", "helium": "Helium", "neon": "Neon", "krypton": "Krypton",
-    "xenon": "Xenon", "ammonia": "Ammonia", "propane": "n-Propane", "butane": "n-Butane",
-    "ethane": "Ethane", "ethylene": "Ethylene", "ethanol": "Ethanol", "methanol": "Methanol",
-    "nitrous oxide": "NitrousOxide", "sulfur dioxide": "SulfurDioxide",
-    "hydrogen sulfide": "HydrogenSulfide", "heavy water": "HeavyWater", "air": "Air",
+    "water": "Water",
+    "steam": "Water",
+    "h2o": "Water",
+    "carbon dioxide": "CarbonDioxide",
+    "carbon monoxide": "CarbonMonoxide",
+    "nitrogen": "Nitrogen",
+    "argon": "Argon",
+    "methane": "Methane",
+    "oxygen": "Oxygen",
+    "hydrogen": "Hydrogen",
+    "helium": "Helium",
+    "neon": "Neon",
+    "krypton": "Krypton",
+    "xenon": "Xenon",
+    "ammonia": "Ammonia",
+    "propane": "n-Propane",
+    "butane": "n-Butane",
+    "ethane": "Ethane",
+    "ethylene": "Ethylene",
+    "ethanol": "Ethanol",
+    "methanol": "Methanol",
+    "nitrous oxide": "NitrousOxide",
+    "sulfur dioxide": "SulfurDioxide",
+    "hydrogen sulfide": "HydrogenSulfide",
+    "heavy water": "HeavyWater",
+    "air": "Air",
 }
 
 _TRIPLE_SHIFT_LIMIT = 0.05  # K: temperature offset above which a melting line is flagged unreliable
@@ -113,16 +131,15 @@ def substance(name: object) -> Substance:
 _LOADING = threading.RLock()
 
 
-@lru_cache(maxsize=None)
+@cache
 def _coolprop_substance(name: str) -> Substance:
     eos = EOS(name)
     notes: list[str] = []
     T_t, p_t, T_c, p_c = eos.T_triple, eos.p_triple, eos.T_crit, eos.p_crit
-    vapor = Boundary(
-        "vaporization", "vapor pressure", T_t, T_c, "CoolProp", eos.p_sat, eos.T_sat
-    )
+    vapor = Boundary("vaporization", "vapor pressure", T_t, T_c, "CoolProp", eos.p_sat, eos.T_sat)
     if name == "Water":
-        melting, sublimation = water_boundaries(p_t)
+        melting, water_sub = water_boundaries(p_t)
+        sublimation: Boundary | None = water_sub
         notes.append(
             "Melting and sublimation from IAPWS R14-08 (CoolProp's water melting line is not used)."
         )
@@ -189,8 +206,17 @@ def _coolprop_melting(eos: EOS, notes: list[str]) -> list[Boundary]:
         return eos.T_melt(p - shift)
 
     return [
-        Boundary("melting", "melting", T_lo, T_hi, "CoolProp", p_of_T, T_of_p,
-                 reliable=reliable, note=note)
+        Boundary(
+            "melting",
+            "melting",
+            T_lo,
+            T_hi,
+            "CoolProp",
+            p_of_T,
+            T_of_p,
+            reliable=reliable,
+            note=note,
+        )
     ]
 
 
@@ -268,7 +294,9 @@ class Substance:
         if T_min is None:
             T_min = sublimation.T_min if sublimation is not None else self.triple[0]
         self.T_min = float(T_min)
-        self._melt_top = max((b.T_max for b in self.melting if b.solid_side == "above"), default=None)
+        self._melt_top = max(
+            (b.T_max for b in self.melting if b.solid_side == "above"), default=None
+        )
 
     def __repr__(self) -> str:
         return f"<Substance {self.name}>"
@@ -303,15 +331,21 @@ class Substance:
         """Raise a phasepath error unless (T, p) lies where the models are valid."""
         for v, what in ((T, "T"), (p, "p")):
             if not isinstance(v, numbers.Real) or isinstance(v, bool) or not math.isfinite(v):
-                raise NonFiniteError(f"{what} = {v!r} is not a finite number ({self.name}: "
-                                     f"valid T {self.T_min:g} K to {self.T_max:g} K, "
-                                     f"p above 0 Pa, up to {self.p_max:.6g} Pa)")
+                raise NonFiniteError(
+                    f"{what} = {v!r} is not a finite number ({self.name}: "
+                    f"valid T {self.T_min:g} K to {self.T_max:g} K, "
+                    f"p above 0 Pa, up to {self.p_max:.6g} Pa)"
+                )
         if T <= 0.0:
-            raise OutOfRangeError(f"T = {T!r} K is not above absolute zero ({self.name}: "
-                                  f"valid {self.T_min:g} K to {self.T_max:g} K)")
+            raise OutOfRangeError(
+                f"T = {T!r} K is not above absolute zero ({self.name}: "
+                f"valid {self.T_min:g} K to {self.T_max:g} K)"
+            )
         if p <= 0.0:
-            raise OutOfRangeError(f"p = {p!r} Pa is not positive ({self.name}: valid above 0 Pa, "
-                                  f"up to {self.p_max:.6g} Pa)")
+            raise OutOfRangeError(
+                f"p = {p!r} Pa is not positive ({self.name}: valid above 0 Pa, "
+                f"up to {self.p_max:.6g} Pa)"
+            )
         if T > self.T_max:
             raise OutOfRangeError(
                 f"T = {T!r} K is above the highest temperature the models of {self.name} cover: "
@@ -395,5 +429,3 @@ class Substance:
             if b.source not in ids:
                 ids.append(b.source)
         return [bibliography.cite(i) for i in ids]
-
-

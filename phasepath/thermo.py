@@ -37,8 +37,9 @@ class NoModel(PhasePathError):
     """No model covers a state; the message is the reason shown to the user."""
 
 
-def phase_props(sub: Substance, T: float, p: float, phase: str,
-                form: str | None = None) -> tuple[float, float, float, str]:
+def phase_props(
+    sub: Substance, T: float, p: float, phase: str, form: str | None = None
+) -> tuple[float, float, float, str]:
     """(h [J/kg], s [J/(kg K)], rho [kg/m3], model) of a single-phase state, or raise NoModel."""
     if phase == "solid":
         return _solid_props(sub, T, p, form)
@@ -54,18 +55,28 @@ def phase_props(sub: Substance, T: float, p: float, phase: str,
     return h, s, rho, model
 
 
-def _solid_props(sub: Substance, T: float, p: float, form: str | None) -> tuple[float, float, float, str]:
+def _solid_props(
+    sub: Substance, T: float, p: float, form: str | None
+) -> tuple[float, float, float, str]:
     try:
         if sub.name == "Water" and form == "Ih":
             from .correlations import ice_ih
 
-            return (ice_ih.enthalpy_ice_ih(T, p), ice_ih.entropy_ice_ih(T, p),
-                    1.0 / ice_ih.volume_ice_ih(T, p), ICE_MODEL)
+            return (
+                ice_ih.enthalpy_ice_ih(T, p),
+                ice_ih.entropy_ice_ih(T, p),
+                1.0 / ice_ih.volume_ice_ih(T, p),
+                ICE_MODEL,
+            )
         if sub.name == "CarbonDioxide":
             from .correlations import co2
 
-            return (co2.solid_enthalpy_co2(T, p), co2.solid_entropy_co2(T, p),
-                    1.0 / co2.solid_volume_co2(T, p), CO2_SOLID_MODEL)
+            return (
+                co2.solid_enthalpy_co2(T, p),
+                co2.solid_entropy_co2(T, p),
+                1.0 / co2.solid_volume_co2(T, p),
+                CO2_SOLID_MODEL,
+            )
     except PhasePathError as exc:
         raise NoModel(str(exc)) from None
     if sub.name == "Water":
@@ -88,8 +99,14 @@ def _involved(before: str, after: str) -> tuple[str, str] | None:
     return None
 
 
-def latent_heat(sub: Substance, kind: str, T: float, p: float, before: tuple[str, str | None],
-                after: tuple[str, str | None]) -> tuple[float | None, str | None, str]:
+def latent_heat(
+    sub: Substance,
+    kind: str,
+    T: float,
+    p: float,
+    before: tuple[str, str | None],
+    after: tuple[str, str | None],
+) -> tuple[float | None, str | None, str]:
     """(latent heat [J/kg] > 0, model, note) of a crossing; (None, None, reason) where unknown."""
     if kind not in _FIRST_ORDER:
         return None, None, "not a first-order transition: no latent heat"
@@ -118,8 +135,9 @@ def latent_heat(sub: Substance, kind: str, T: float, p: float, before: tuple[str
     return None, None, "no model for this transition"
 
 
-def leg_heat_work(kind: str, start: StatePoint, end: StatePoint, basis: str = "steady-flow"
-                  ) -> tuple[float | None, float | None, str]:
+def leg_heat_work(
+    kind: str, start: StatePoint, end: StatePoint, basis: str = "steady-flow"
+) -> tuple[float | None, float | None, str]:
     """Heat into and work done on the substance per kg over a leg, on the chosen basis.
 
     steady-flow (per kg flowing through a device; reversible except the throttle):

@@ -40,17 +40,41 @@ PRESSURE_UNITS = ("Pa", "kPa", "bar", "MPa", "psi", "atm")
 ENERGY_UNITS = ("J/kg", "kJ/kg", "Btu/lb")
 DENSITY_UNITS = ("kg/m3", "g/cm3", "kg/L")
 
-_SI = {"temperature": "kelvin", "pressure": "pascal", "energy": "joule / kilogram",
-       "density": "kilogram / meter ** 3", "volume": "meter ** 3 / kilogram"}
-_DIM = {"temperature": "[temperature]", "pressure": "[mass] / [length] / [time] ** 2",
-        "energy": "[length] ** 2 / [time] ** 2", "density": "[mass] / [length] ** 3",
-        "volume": "[length] ** 3 / [mass]"}
+_SI = {
+    "temperature": "kelvin",
+    "pressure": "pascal",
+    "energy": "joule / kilogram",
+    "density": "kilogram / meter ** 3",
+    "volume": "meter ** 3 / kilogram",
+}
+_DIM = {
+    "temperature": "[temperature]",
+    "pressure": "[mass] / [length] / [time] ** 2",
+    "energy": "[length] ** 2 / [time] ** 2",
+    "density": "[mass] / [length] ** 3",
+    "volume": "[length] ** 3 / [mass]",
+}
 # Spellings users type that pint does not know by itself.
 _ALIASES = {
-    "°c": "degC", "c": "degC", "celsius": "degC", "degc": "degC", "°f": "degF", "f": "degF",
-    "fahrenheit": "degF", "degf": "degF", "k": "K", "kelvin": "K", "°r": "degR", "r": "degR",
-    "psia": "psi", "barа": "bar", "bara": "bar", "kg/m3": "kg/m**3", "kg/l": "kg/L",
-    "g/cm3": "g/cm**3", "btu/lb": "Btu/lb",
+    "°c": "degC",
+    "c": "degC",
+    "celsius": "degC",
+    "degc": "degC",
+    "°f": "degF",
+    "f": "degF",
+    "fahrenheit": "degF",
+    "degf": "degF",
+    "k": "K",
+    "kelvin": "K",
+    "°r": "degR",
+    "r": "degR",
+    "psia": "psi",
+    "barа": "bar",
+    "bara": "bar",
+    "kg/m3": "kg/m**3",
+    "kg/l": "kg/L",
+    "g/cm3": "g/cm**3",
+    "btu/lb": "Btu/lb",
 }
 # Matched against stripped text only: no trailing ``\s*`` after a lazy group, which made the
 # match time grow with the square of the length of a run of blanks inside the text.
@@ -93,7 +117,11 @@ def _finite(x: float, original: object, what: str) -> float:
 def _short(value: object, limit: int = 60) -> str:
     """repr of a value as the user gave it, cut short in the middle when very long."""
     text = repr(value)
-    return text if len(text) <= limit else f"{text[:limit // 2]}…{text[-limit // 2:]} ({len(text)} characters)"
+    return (
+        text
+        if len(text) <= limit
+        else f"{text[: limit // 2]}…{text[-limit // 2 :]} ({len(text)} characters)"
+    )
 
 
 def _float(value: object, what: str) -> float:
@@ -146,8 +174,10 @@ def parse_quantity(value: object, dimension: str, default_unit: str | None = Non
             low = text.lower()
             if low in ("nan", "inf", "-inf", "+inf", "infinity", "-infinity"):
                 raise NonFiniteError(f"{what} {value!r} is not a finite number")
-            raise UnitError(f"cannot read {what} {_short(value)}: expected a number and a unit, "
-                            f"such as '25 degC' or '60 bar'")
+            raise UnitError(
+                f"cannot read {what} {_short(value)}: expected a number and a unit, "
+                f"such as '25 degC' or '60 bar'"
+            )
         mag = _finite(float(m.group(1)), value, what)
         unit_text = m.group(2)
         if not unit_text:

@@ -58,8 +58,9 @@ def _p(value: object, what: str) -> float:
     return p
 
 
-def _points(points: Sequence[Sequence[object]], what: str = "vapor_points"
-            ) -> tuple[tuple[float, float], ...]:
+def _points(
+    points: Sequence[Sequence[object]], what: str = "vapor_points"
+) -> tuple[tuple[float, float], ...]:
     out = []
     try:
         items = list(points)
@@ -147,9 +148,15 @@ class VaporFit:
         """One row per point: T, measured p, fitted p, residual in percent."""
         import pandas as pd
 
-        rows = [{"T [K]": T, "p measured [Pa]": p, "p fitted [Pa]": self.pressure(T),
-                 "residual [%]": 100.0 * math.expm1(r)}
-                for (T, p), r in zip(self.points, self.residuals, strict=True)]
+        rows = [
+            {
+                "T [K]": T,
+                "p measured [Pa]": p,
+                "p fitted [Pa]": self.pressure(T),
+                "residual [%]": 100.0 * math.expm1(r),
+            }
+            for (T, p), r in zip(self.points, self.residuals, strict=True)
+        ]
         return pd.DataFrame(rows)
 
     def describe(self) -> str:
@@ -157,20 +164,27 @@ class VaporFit:
         lo, hi = self.T_range
         n = len(self.points)
         worst = max(range(n), key=lambda i: abs(self.residuals[i]))
-        spread = (f"rms residual {100 * self.rms:.2g} % of p, largest "
-                  f"{100 * math.expm1(self.residuals[worst]):+.2g} % at {self.points[worst][0]:g} K"
-                  if self.dof > 0 else "no degree of freedom left: residuals are zero by "
-                  "construction and the uncertainty is not estimated")
+        spread = (
+            f"rms residual {100 * self.rms:.2g} % of p, largest "
+            f"{100 * math.expm1(self.residuals[worst]):+.2g} % at {self.points[worst][0]:g} K"
+            if self.dof > 0
+            else "no degree of freedom left: residuals are zero by "
+            "construction and the uncertainty is not estimated"
+        )
         if self.form == "antoine":
             q, s = self.params, self.stderr
-            return (f"Antoine fitted to {n} vapor points ({lo:g} K to {hi:g} K): "
-                    f"log10(p/Pa) = {q['A']:.6g} - {q['B']:.6g}/(T/K {_signed(q['C'])}) "
-                    f"(C ± {s['C']:.2g} K); {spread}.")
+            return (
+                f"Antoine fitted to {n} vapor points ({lo:g} K to {hi:g} K): "
+                f"log10(p/Pa) = {q['A']:.6g} - {q['B']:.6g}/(T/K {_signed(q['C'])}) "
+                f"(C ± {s['C']:.2g} K); {spread}."
+            )
         dh, sd = self.params["dH"], self.enthalpy_stderr
         unc = f" ± {sd / 1e3:.2g}" if math.isfinite(sd) else ""
-        return (f"Two-parameter Clausius-Clapeyron fit of {n} vapor points ({lo:g} K to {hi:g} K): "
-                f"enthalpy of vaporization {dh / 1e3:.4g}{unc} kJ/mol (1 standard uncertainty); "
-                f"{spread}.")
+        return (
+            f"Two-parameter Clausius-Clapeyron fit of {n} vapor points ({lo:g} K to {hi:g} K): "
+            f"enthalpy of vaporization {dh / 1e3:.4g}{unc} kJ/mol (1 standard uncertainty); "
+            f"{spread}."
+        )
 
 
 def _signed(x: float) -> str:
@@ -212,7 +226,8 @@ def fit_clausius_clapeyron(points: Sequence[Sequence[object]]) -> VaporFit:
         "clausius-clapeyron",
         {"T_ref": 1.0 / xm, "p_ref": float(math.exp(coef[0])), "dH": float(dH)},
         {"T_ref": 0.0, "p_ref": sd_p, "dH": sd_dH},
-        pts, tuple(float(r) for r in res),
+        pts,
+        tuple(float(r) for r in res),
     )
 
 
@@ -254,8 +269,9 @@ def fit_antoine(points: Sequence[Sequence[object]]) -> VaporFit:
     grid = np.linspace(lo, hi, 241)
     k = int(np.argmin([ssr(c) for c in grid]))
     a, b = grid[max(k - 1, 0)], grid[min(k + 1, len(grid) - 1)]
-    C = float(minimize_scalar(ssr, bounds=(a, b), method="bounded",
-                              options={"xatol": 1e-9 * T.min()}).x)
+    C = float(
+        minimize_scalar(ssr, bounds=(a, b), method="bounded", options={"xatol": 1e-9 * T.min()}).x
+    )
     if min(C - lo, hi - C) < 1e-3 * T.min():
         raise PhasePathError(
             f"the vapor points ({T.min():g} K to {T.max():g} K) do not determine the Antoine "
@@ -271,6 +287,10 @@ def fit_antoine(points: Sequence[Sequence[object]]) -> VaporFit:
         stderr = {"A": sd[0] / ln10, "B": sd[1] / ln10, "C": float(sd[2])}
     else:
         stderr = {"A": math.nan, "B": math.nan, "C": math.nan}
-    return VaporFit("antoine", {"A": float(A), "B": float(B), "C": C},
-                    {k_: float(v) for k_, v in stderr.items()}, pts,
-                    tuple(float(r) for r in res))
+    return VaporFit(
+        "antoine",
+        {"A": float(A), "B": float(B), "C": C},
+        {k_: float(v) for k_, v in stderr.items()},
+        pts,
+        tuple(float(r) for r in res),
+    )

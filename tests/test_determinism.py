@@ -74,7 +74,7 @@ def test_same_results_on_repeated_runs() -> None:
     first = _all()
     for _ in range(2):
         assert _all() == first
-    assert all(len(f) > 1 + len(p[2]) for f, p in zip(first, _PLANS))  # each plan crosses
+    assert all(len(f) > 1 + len(p[2]) for f, p in zip(first, _PLANS, strict=False))  # each plan crosses
 
 
 def test_same_results_in_a_fresh_process() -> None:

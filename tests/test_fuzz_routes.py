@@ -170,7 +170,7 @@ def _check_sides(sub: pp.Substance, route: pp.Route, rep: pp.Report) -> None:
     for step, crossings in by_leg.items():
         kind, a, b = _leg_points(route, step)
         us = [_fraction(kind, a, b, c.T, c.p) for c in crossings]
-        for i, (c, u) in enumerate(zip(crossings, us)):
+        for i, (c, u) in enumerate(zip(crossings, us, strict=False)):
             gap = min([abs(u - v) for j, v in enumerate(us) if j != i] + [1.0])
             if gap < 100 * _NUDGE or c.at_corner:
                 continue  # two crossings (nearly) at one point: the chain check covers them
@@ -190,7 +190,7 @@ def _check_dense_scan(sub: pp.Substance, route: pp.Route, rep: pp.Report) -> Non
         # phases only: a change of solid form alone (water's ice Ih to a high-pressure ice below
         # 251 K) is not a crossing of the phase diagram's fluid-solid boundaries
         phases = [(sub.classify(*_at(kind, a, b, u))[0], None) for u in us]
-        for u0, u1, ph0, ph1 in zip(us[:-1], us[1:], phases[:-1], phases[1:]):
+        for u0, u1, ph0, ph1 in zip(us[:-1], us[1:], phases[:-1], phases[1:], strict=False):
             inside = [c for c in leg_crossings if u0 <= _fraction(kind, a, b, c.T, c.p) <= u1]
             if ph0 == ph1 and not inside:
                 continue
@@ -248,7 +248,7 @@ def test_reversing_reverses_the_crossings(route: pp.Route) -> None:
     rev = _analyze(back)
     n = len(route.legs)
     assert len(rev.crossings) == len(rep.crossings)
-    for c, r in zip(rep.crossings, reversed(rev.crossings)):
+    for c, r in zip(rep.crossings, reversed(rev.crossings), strict=False):
         assert r.kind == _INVERSE[c.kind]
         assert (r.from_phase, r.to_phase) == (c.to_phase, c.from_phase)
         assert (r.from_form, r.to_form) == (c.to_form, c.from_form)
@@ -275,7 +275,7 @@ def test_splitting_a_leg_leaves_the_crossings(route: pp.Route, where: st.DataObj
         split.isobar(T=leg.T) if leg.kind == "isobar" else split.isotherm(p=leg.p)
     rep2 = _analyze(split)
     assert [_signature(c) for c in rep2.crossings] == [_signature(c) for c in rep.crossings]
-    for c, d in zip(rep.crossings, rep2.crossings):
+    for c, d in zip(rep.crossings, rep2.crossings, strict=False):
         assert d.T == pytest.approx(c.T, rel=TOLERANCE) and d.p == pytest.approx(c.p, rel=TOLERANCE)
         if c.step < step:
             assert d.step == c.step

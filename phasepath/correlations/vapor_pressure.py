@@ -64,8 +64,15 @@ def _check(T: float, T_range: tuple[float, float] | None, what: str) -> None:
         )
 
 
-def antoine(T: float, A: float, B: float, C: float, *, base: float = 10.0,
-            T_range: tuple[float, float] | None = None) -> float:
+def antoine(
+    T: float,
+    A: float,
+    B: float,
+    C: float,
+    *,
+    base: float = 10.0,
+    T_range: tuple[float, float] | None = None,
+) -> float:
     """Vapor pressure by the Antoine equation, log_base(p/Pa) = A - B / (T/K + C).
 
     Parameters
@@ -112,8 +119,7 @@ def antoine(T: float, A: float, B: float, C: float, *, base: float = 10.0,
     _check(T, T_range, "Antoine equation")
     if T + C <= 0.0:
         raise OutOfRangeError(
-            f"T = {T!r} K is at or below the pole of the Antoine equation "
-            f"(T + C <= 0, C = {C:g} K)"
+            f"T = {T!r} K is at or below the pole of the Antoine equation (T + C <= 0, C = {C:g} K)"
         )
     return float(base ** (A - B / (T + C)))
 
@@ -132,13 +138,20 @@ def antoine_temperature(p: float, A: float, B: float, C: float, *, base: float =
     d = A - math.log(p) / math.log(base)
     if d <= 0.0:
         raise OutOfRangeError(
-            f"p = {p!r} Pa is beyond the top of the Antoine equation (log p >= A)")
+            f"p = {p!r} Pa is beyond the top of the Antoine equation (log p >= A)"
+        )
     return B / d - C
 
 
-def _wagner(T: float, T_c: float, p_c: float, coef: tuple[float, float, float, float],
-            powers: tuple[float, float, float, float], T_range: tuple[float, float] | None,
-            what: str) -> float:
+def _wagner(
+    T: float,
+    T_c: float,
+    p_c: float,
+    coef: tuple[float, float, float, float],
+    powers: tuple[float, float, float, float],
+    T_range: tuple[float, float] | None,
+    what: str,
+) -> float:
     _check(T, T_range, what)
     if T > T_c:
         raise OutOfRangeError(f"T = {T!r} K is above the critical temperature {T_c:g} K ({what})")
@@ -147,8 +160,17 @@ def _wagner(T: float, T_c: float, p_c: float, coef: tuple[float, float, float, f
     return float(p_c * math.exp(s * T_c / T))
 
 
-def wagner_3_6(T: float, T_c: float, p_c: float, a: float, b: float, c: float, d: float, *,
-               T_range: tuple[float, float] | None = None) -> float:
+def wagner_3_6(
+    T: float,
+    T_c: float,
+    p_c: float,
+    a: float,
+    b: float,
+    c: float,
+    d: float,
+    *,
+    T_range: tuple[float, float] | None = None,
+) -> float:
     """Vapor pressure by the Wagner equation in its original 3-6 form.
 
     ln(p/p_c) = (T_c/T) (a tau + b tau^1.5 + c tau^3 + d tau^6), tau = 1 - T/T_c.
@@ -189,12 +211,22 @@ def wagner_3_6(T: float, T_c: float, p_c: float, a: float, b: float, c: float, d
     >>> wagner_3_6(190.53, 190.53, 4596420.0, -6.00435, 1.1885, -0.834082, -1.22833)
     4596420.0
     """
-    return _wagner(T, T_c, p_c, (a, b, c, d), (1.0, 1.5, 3.0, 6.0), T_range,
-                   "Wagner equation (3-6 form)")
+    return _wagner(
+        T, T_c, p_c, (a, b, c, d), (1.0, 1.5, 3.0, 6.0), T_range, "Wagner equation (3-6 form)"
+    )
 
 
-def wagner_25_5(T: float, T_c: float, p_c: float, a: float, b: float, c: float, d: float, *,
-                T_range: tuple[float, float] | None = None) -> float:
+def wagner_25_5(
+    T: float,
+    T_c: float,
+    p_c: float,
+    a: float,
+    b: float,
+    c: float,
+    d: float,
+    *,
+    T_range: tuple[float, float] | None = None,
+) -> float:
     """Vapor pressure by the Wagner equation in its 2.5-5 form.
 
     ln(p/p_c) = (T_c/T) (a tau + b tau^1.5 + c tau^2.5 + d tau^5), tau = 1 - T/T_c.
@@ -230,12 +262,14 @@ def wagner_25_5(T: float, T_c: float, p_c: float, a: float, b: float, c: float, 
     >>> round(wagner_25_5(100.0, 190.551, 4599200.0, -6.02242, 1.26652, -0.5707, -1.366), 6)
     34415.004763
     """
-    return _wagner(T, T_c, p_c, (a, b, c, d), (1.0, 1.5, 2.5, 5.0), T_range,
-                   "Wagner equation (2.5-5 form)")
+    return _wagner(
+        T, T_c, p_c, (a, b, c, d), (1.0, 1.5, 2.5, 5.0), T_range, "Wagner equation (2.5-5 form)"
+    )
 
 
-def clausius_clapeyron(T: float, T_ref: float, p_ref: float, dH: float, *,
-                       T_range: tuple[float, float] | None = None) -> float:
+def clausius_clapeyron(
+    T: float, T_ref: float, p_ref: float, dH: float, *, T_range: tuple[float, float] | None = None
+) -> float:
     """Vapor or sublimation pressure by the integrated Clausius-Clapeyron equation.
 
     ln(p/p_ref) = -(dH/R) (1/T - 1/T_ref): the gas ideal, the condensed phase's volume neglected
@@ -282,16 +316,24 @@ def clausius_clapeyron_temperature(p: float, T_ref: float, p_ref: float, dH: flo
     373.124
     """
     if not (isinstance(p, (int, float)) and math.isfinite(p) and p > 0.0):
-        raise OutOfRangeError(f"p = {p!r} Pa is not a positive finite pressure "
-                              "(Clausius-Clapeyron equation)")
+        raise OutOfRangeError(
+            f"p = {p!r} Pa is not a positive finite pressure (Clausius-Clapeyron equation)"
+        )
     x = 1.0 / T_ref - R * math.log(p / p_ref) / dH
     if x <= 0.0:
         raise OutOfRangeError(f"p = {p!r} Pa is beyond the Clausius-Clapeyron curve (1/T <= 0)")
     return 1.0 / x
 
 
-def simon_glatzel(T: float, T_ref: float, p_ref: float, a: float, c: float, *,
-                  T_range: tuple[float, float] | None = None) -> float:
+def simon_glatzel(
+    T: float,
+    T_ref: float,
+    p_ref: float,
+    a: float,
+    c: float,
+    *,
+    T_range: tuple[float, float] | None = None,
+) -> float:
     """Melting pressure by the Simon-Glatzel equation, p = p_ref + a ((T/T_ref)^c - 1).
 
     Parameters

@@ -71,7 +71,7 @@ def melting_pressure_ice_ih(T: float) -> float:
     th = T / T_TRIPLE
     a = (0.119539337e7, 0.808183159e5, 0.333826860e4)
     b = (0.300000e1, 0.257500e2, 0.103750e3)
-    return P_TRIPLE * (1.0 + sum(ai * (1.0 - th**bi) for ai, bi in zip(a, b)))
+    return P_TRIPLE * (1.0 + sum(ai * (1.0 - th**bi) for ai, bi in zip(a, b, strict=False)))
 
 
 def melting_pressure_ice_iii(T: float) -> float:
@@ -186,4 +186,4 @@ def sublimation_pressure_ice_ih(T: float) -> float:
     th = T / T_TRIPLE
     a = (-0.212144006e2, 0.273203819e2, -0.610598130e1)
     b = (0.333333333e-2, 0.120666667e1, 0.170333333e1)
-    return P_TRIPLE * math.exp(sum(ai * th**bi for ai, bi in zip(a, b)) / th)
+    return P_TRIPLE * math.exp(sum(ai * th**bi for ai, bi in zip(a, b, strict=False)) / th)
