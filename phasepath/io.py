@@ -359,9 +359,25 @@ def _json_lines(text: str, dupes_ok: bool = False) -> dict[tuple[Any, ...], int]
     return lines
 
 
+_BRACKETS = re.compile(r"[^\[\]{}]+")
+_MAX_DEPTH = 64  # a route file is 3 levels deep; the YAML reader slows quadratically with depth
+
+
+def _bracket_depth(text: str) -> int:
+    """Deepest nesting of [ and { in the text (a cheap bound, quotes not considered)."""
+    depth = deepest = 0
+    for c in _BRACKETS.sub("", text):
+        depth = depth + 1 if c in "[{" else max(depth - 1, 0)
+        deepest = max(deepest, depth)
+    return deepest
+
+
 def _read_yaml(text: str, source: str) -> tuple[Any, dict[tuple[Any, ...], int]]:
     import yaml
 
+    if _bracket_depth(text) > _MAX_DEPTH:
+        raise _error(f"values are nested too deeply (more than {_MAX_DEPTH} levels of [ or {{): "
+                     f"a route file is a few levels deep", source)
     try:
         for event in yaml.parse(text, Loader=yaml.SafeLoader):
             if isinstance(event, yaml.AliasEvent):

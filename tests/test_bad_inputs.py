@@ -255,8 +255,10 @@ CASES: dict[str, Bad | Good] = {
     "T-negative-K": Bad(lambda: _route("water", -5, 1e5), E.OutOfRangeError,
                         ("T=-5", "absolute zero", *WATER_T)),
     "T-below-absolute-zero-degC": Bad(lambda: _route("water", "-300 degC", 1e5),
-                                      E.OutOfRangeError, ("'-300 degC'", "absolute zero", *WATER_T)),
-    "p-zero": Bad(lambda: _route("water", 300, 0), E.OutOfRangeError, ("p=0", "positive", *WATER_P)),
+                                      E.OutOfRangeError,
+                                      ("'-300 degC'", "absolute zero", *WATER_T)),
+    "p-zero": Bad(lambda: _route("water", 300, 0), E.OutOfRangeError,
+                  ("p=0", "positive", *WATER_P)),
     "p-negative-bar": Bad(lambda: _route("water", 300, "-1 bar"), E.OutOfRangeError,
                           ("'-1 bar'", "positive", *WATER_P)),
     # --- units --------------------------------------------------------------------------------
@@ -362,7 +364,8 @@ def test_bad_input(case_id: str) -> None:
                 case.call()
             assert isinstance(info.value, pp.PhasePathError)
             assert isinstance(info.value, ValueError)
-            assert info.value.__cause__ is None or isinstance(info.value.__cause__, pp.PhasePathError)
+            cause = info.value.__cause__
+            assert cause is None or isinstance(cause, pp.PhasePathError)
             _message_ok(info.value, case)
         else:
             case.check(case.call())

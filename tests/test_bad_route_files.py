@@ -64,7 +64,7 @@ CASES: dict[str, tuple[str, str | None, tuple[str, ...]]] = {
                           "start: {T: 300, p: 1e5}\nlegs: []\n", "yaml",
                           ("substance", "quotes")),
     "start-list": (_with(start=[300, 1e5]), "json", ("start",)),
-    "start-missing-p": (_with(start={"T": 300}), "json", ("start.p", "required")),
+    "start-missing-p": (_with(start={"T": 300}), "json", ("start", "missing value")),
     "start-T-huge-int": (_GOOD_JSON.replace('"40 degC"', "1" + "0" * 5000), "json",
                          ("route file",)),
     "start-T-1e400": (_GOOD_JSON.replace('"40 degC"', "1e400"), "json", ("start.T", "finite")),

@@ -125,7 +125,8 @@ def _at(kind: str, a: tuple[float, float], b: tuple[float, float], u: float) -> 
     return a[0], math.exp(math.log(a[1]) + u * (math.log(b[1]) - math.log(a[1])))
 
 
-def _fraction(kind: str, a: tuple[float, float], b: tuple[float, float], T: float, p: float) -> float:
+def _fraction(kind: str, a: tuple[float, float], b: tuple[float, float], T: float,
+              p: float) -> float:
     x0, x1, x = _coord(kind, *a), _coord(kind, *b), _coord(kind, T, p)
     return (x - x0) / (x1 - x0)
 
@@ -206,7 +207,7 @@ def _check_dense_scan(sub: pp.Substance, route: pp.Route, rep: pp.Report) -> Non
         first = [c for c in leg_crossings if _fraction(kind, a, b, c.T, c.p) < us[0]]
         last = [c for c in leg_crossings if _fraction(kind, a, b, c.T, c.p) > us[-1]]
         if not first:
-            assert leg.start.phase == phases[0][0] or _near_boundary(sub, *a), (leg.start, phases[0])
+            assert leg.start.phase == phases[0][0] or _near_boundary(sub, *a), leg.start
         if not last:
             assert leg.end.phase == phases[-1][0] or _near_boundary(sub, *b), (leg.end, phases[-1])
 
