@@ -69,7 +69,9 @@ class Crossing:
     ``T`` [K] and ``p`` [Pa] lie on the boundary: on a constant-temperature leg ``p`` is the
     boundary pressure evaluated at the leg's temperature; on a constant-pressure leg ``T`` is the
     boundary temperature at the leg's pressure, found directly or by ``brentq`` on the exact
-    equation, so that the boundary pressure at ``T`` equals ``p`` within 1e-9 relative.
+    equation, so that the boundary pressure at ``T`` equals ``p`` within 1e-9 relative (on the
+    steepest branches at very low pressure, where one floating-point step in ``T`` moves the
+    pressure by more than that, ``T`` is the float closest to the exact crossing).
     ``latent_heat`` [J/kg] is the (positive) enthalpy of the transition, or None with the reason
     in ``latent_heat_note``.
     """
