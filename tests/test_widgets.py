@@ -501,3 +501,19 @@ def test_curve_marks_are_kept(co2):
     assert co2.diagram.curves == curves and list(co2.diagram.figure.marks) == marks
     co2.substance = "water"  # another substance reuses the same Lines
     assert co2.diagram.curves[: len(curves)] == curves[: len(co2.diagram.curves)]
+
+
+def test_no_sublimation_strip_is_labelled() -> None:
+    """Below the triple point of a fluid with no published sublimation curve the diagram says
+    so plainly (issue rule), and shows no solid region there; CO2 has Span & Wagner's curve."""
+    from phasepath.substances import NO_SUBLIMATION
+    from phasepath.widgets.diagram import PhaseDiagram
+
+    d = PhaseDiagram("K", "bar")
+    d.set_substance(pp.substance("ammonia"))
+    assert list(d.strip_note.text) == [NO_SUBLIMATION]
+    assert float(d.strip_note.x[0]) < pp.substance("ammonia").triple[0]
+    assert "SOLID" not in list(d.regions.text)
+    d.set_substance(pp.substance("CO2"))
+    assert list(d.strip_note.text) == []
+    assert "SOLID" in list(d.regions.text)

@@ -17,7 +17,7 @@ import ipywidgets as W
 import numpy as np
 
 from ..report import UNIT_LABELS
-from ..substances import Substance
+from ..substances import NO_SUBLIMATION, Substance
 from ..units import convert
 
 __all__ = ["PhaseDiagram", "STYLE", "to_display", "from_display"]
@@ -110,6 +110,18 @@ class PhaseDiagram:
         )
         empty = np.array([], dtype=float)
         self.curves: list[bq.Lines] = []  # rebuilt per substance
+        # the strip below the triple point of a fluid with no published sublimation curve
+        self.strip_note = bq.Label(
+            x=empty,
+            y=empty,
+            text=[],
+            scales=sc,
+            colors=[STYLE["region"]["color"]],
+            default_size=12,
+            font_unit="px",
+            align="middle",
+            rotate_angle=-90,
+        )
         self.regions = bq.Label(
             x=empty,
             y=empty,
@@ -185,6 +197,7 @@ class PhaseDiagram:
         )
         self.figure = bq.Figure(
             marks=[
+                self.strip_note,
                 self.regions,
                 self.route_line,
                 self.crossings,
@@ -251,6 +264,7 @@ class PhaseDiagram:
                     line.line_style = ex["dash"] if extrapolated else st["dash"]
                     line.stroke_width = ex["width"] if extrapolated else st["width"]
             marks = self.curves + [
+                self.strip_note,
                 self.regions,
                 self.route_line,
                 self.crossings,
@@ -283,15 +297,14 @@ class PhaseDiagram:
             with mark.hold_sync():
                 mark.x, mark.y = x, y
             mark.tooltip.value = tip
-        rx, ry = to_display(
-            [r[1] for r in self._region_si],
-            [r[2] for r in self._region_si],
-            self.T_unit,
-            self.p_unit,
-        )
-        with self.regions.hold_sync():
-            self.regions.x, self.regions.y = rx, ry
-            self.regions.text = [r[0] for r in self._region_si]
+        for mark, keep in ((self.regions, False), (self.strip_note, True)):
+            rows = [r for r in self._region_si if (r[0] == NO_SUBLIMATION) == keep]
+            rx, ry = to_display(
+                [r[1] for r in rows], [r[2] for r in rows], self.T_unit, self.p_unit
+            )
+            with mark.hold_sync():
+                mark.x, mark.y = rx, ry
+                mark.text = [r[0] for r in rows]
         self.ax.label = f"Temperature [{UNIT_LABELS[self.T_unit]}]"
         self.ay.label = f"Pressure [{UNIT_LABELS[self.p_unit]}]"
 
@@ -317,6 +330,9 @@ class PhaseDiagram:
         T_t, p_t, T_c, p_c = _anchors(sub)
         span = T_c - T_t
         T_lo = max(sub.T_min, T_t - 0.3 * span)
+        if sub.sublimation is None and math.isfinite(T_t):
+            # show the strip below the triple point, labelled: no published sublimation curve
+            T_lo = max(T_t - 0.12 * span, 1.0)
         T_hi = min(sub.T_max, T_c + 0.3 * span)
         p_lo = p_t / 30.0
         if sub.sublimation is not None and sub.sublimation.T_min <= T_lo <= sub.sublimation.T_max:
@@ -433,6 +449,7 @@ class PhaseDiagram:
             self.triple,
             self.critical,
             self.regions,
+            self.strip_note,
             *self._curve_pool,
         ]
 
@@ -473,6 +490,11 @@ def _region_positions(
     if sub.melting or sub.sublimation is not None:
         T_s = T_lo + 0.35 * (T_t - T_lo) if T_t > T_lo else T_t
         out.append(("SOLID", T_s, 10 ** (0.5 * (lp_t + lp_c))))
+    # below the triple point of a fluid with no published sublimation curve: say so plainly
+    if sub.sublimation is None and math.isfinite(T_t) and T_t > T_lo:
+        # written upright in the strip, centred on the window's pressure range
+        p_mid = 10 ** (0.5 * (math.log10(p_lo) + math.log10(p_hi)))
+        out.append((NO_SUBLIMATION, T_lo + 0.5 * (T_t - T_lo), p_mid))
     # supercritical: right of and above the critical point (only where one is known)
     if math.isfinite(sub.critical[0]) and math.isfinite(sub.critical[1]):
         out.append(
