@@ -54,6 +54,7 @@ import numpy as np
 from scipy.optimize import brentq
 
 from phasepath import analysis
+from phasepath.correlations import co2, ice_ih
 
 SCAN_POINTS = 2000
 
@@ -83,6 +84,8 @@ def forget(sub: pp.Substance) -> Callable[[], None]:
 
     def clear() -> None:
         analysis.cache_clear()
+        co2._js_terms.cache_clear()  # solid models: one evaluation serves h, s and v
+        ice_ih._derivatives.cache_clear()
         memo = getattr(sub.eos, "_states", None)
         if memo is not None:
             memo.clear()

@@ -22,6 +22,7 @@ and licensed practice; these functions are design aids, not a safety case.
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 from scipy.optimize import brentq
 
@@ -371,8 +372,12 @@ _JS_GK = (2.2690751e-1, -7.5019750e-2, 2.6442913e-1)
 _JS_NU = 6.0 / 7.0  # (n - 1)/n with n = 7
 
 
+@lru_cache(maxsize=512)
 def _js_terms(T: float, p: float) -> tuple[float, float, float, float]:
-    """Reduced Gibbs energy of the solid and its derivatives: (G, G_t, G_tt, G_pi)."""
+    """Reduced Gibbs energy of the solid and its derivatives: (G, G_t, G_tt, G_pi).
+
+    Cached: h, s and v of one state come from one evaluation.
+    """
     g0, g1, g2, g3, g4, g5, g6, g7, g8, g9, g10 = _JS_G
     a0, a1, a2, a3, a4, a5, a6, a7, a8 = _JS_GA
     k0, k1, k2 = _JS_GK

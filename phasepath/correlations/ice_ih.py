@@ -25,6 +25,7 @@ from __future__ import annotations
 
 import cmath
 import math
+from functools import lru_cache
 
 from ..errors import NonFiniteError, OutOfRangeError
 
@@ -106,6 +107,7 @@ def _bracket_tautau(t: complex, tau: float) -> complex:
     return 1.0 / (t - tau) + 1.0 / (t + tau) - 2.0 / t
 
 
+@lru_cache(maxsize=512)
 def _derivatives(T: float, p: float) -> tuple[float, float, float, float]:
     """g [J/kg], g_T [J/(kg K)], g_TT [J/(kg K2)], g_p [m3/kg] of R10-06 Table 3 and 4."""
     tau = T / T_TRIPLE
