@@ -376,8 +376,11 @@ def _read_yaml(text: str, source: str) -> tuple[Any, dict[tuple[Any, ...], int]]
     import yaml
 
     if _bracket_depth(text) > _MAX_DEPTH:
-        raise _error(f"values are nested too deeply (more than {_MAX_DEPTH} levels of [ or {{): "
-                     f"a route file is a few levels deep", source)
+        raise _error(
+            f"values are nested too deeply (more than {_MAX_DEPTH} levels of [ or {{): "
+            f"a route file is a few levels deep",
+            source,
+        )
     try:
         for event in yaml.parse(text, Loader=yaml.SafeLoader):
             if isinstance(event, yaml.AliasEvent):
