@@ -517,3 +517,13 @@ def test_no_sublimation_strip_is_labelled() -> None:
     d.set_substance(pp.substance("CO2"))
     assert list(d.strip_note.text) == []
     assert "SOLID" in list(d.regions.text)
+
+
+def test_legend_lists_only_the_curves_drawn() -> None:
+    """Ammonia has neither a melting line in CoolProp nor a published sublimation curve (common
+    practice: only curves on the diagram appear in its legend); CO2 has all three."""
+    ammonia = pp.widgets.RoutePlanner("ammonia")
+    assert "vapor pressure" in ammonia.legend.value
+    assert "melting" not in ammonia.legend.value and "sublimation" not in ammonia.legend.value
+    co2 = pp.widgets.RoutePlanner("CO2")
+    assert "melting" in co2.legend.value and "sublimation" in co2.legend.value

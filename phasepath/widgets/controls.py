@@ -394,9 +394,10 @@ def cautions_html(
     )
 
 
-def legend_html(extrapolated: bool = False) -> str:
+def legend_html(extrapolated: bool = False, kinds: tuple[str, ...] | None = None) -> str:
     """The legend under the diagram; ``extrapolated`` adds the key of curves beyond their data
-    (drawn for substances built from data)."""
+    (drawn for substances built from data); ``kinds`` limits the curve keys to the boundary kinds
+    the substance has (all three when None)."""
     from .diagram import STYLE
 
     def line(kind: str) -> str:
@@ -415,9 +416,11 @@ def legend_html(extrapolated: bool = False) -> str:
 
     return (
         "<div class='pp-legend'>"
-        + line("vaporization")
-        + line("melting")
-        + line("sublimation")
+        + "".join(
+            line(k)
+            for k in ("vaporization", "melting", "sublimation")
+            if kinds is None or k in kinds
+        )
         + (line("extrapolated") if extrapolated else "")
         + "<span class='pp-key'><svg width='12' height='12'><polygon points='6,1 11,11 1,11' "
         "fill='#1d1d1f'/></svg> triple point</span>"

@@ -132,7 +132,9 @@ class RoutePlanner(W.VBox):
         self._busy = False
         self._spec = _spec.from_route(route) if route is not None else _spec.empty(_key_of(sub))
         self.diagram.set_substance(sub)
-        self.legend.value = legend_html(_has_data_ranges(sub))
+        self.legend.value = legend_html(
+            _has_data_ranges(sub), tuple({b.kind for b in sub.boundaries})
+        )
         self._apply(self._spec, fit=True)
 
     # -- construction --------------------------------------------------------------------------
@@ -637,7 +639,9 @@ class RoutePlanner(W.VBox):
         with self._quiet():
             self.substance = sub.name
         self.diagram.set_substance(sub)
-        self.legend.value = legend_html(_has_data_ranges(sub))
+        self.legend.value = legend_html(
+            _has_data_ranges(sub), tuple({b.kind for b in sub.boundaries})
+        )
 
     def _resolve(self, name: object) -> Substance:
         """The substance for a name (the planner's own one first: a substance built from data
