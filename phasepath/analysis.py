@@ -35,6 +35,7 @@ from dataclasses import dataclass, replace
 from functools import lru_cache
 from typing import TYPE_CHECKING
 
+from . import processes
 from .errors import PhasePathError, RouteError
 from .hazards import crossing_hazards, leg_hazards
 from .processes import CURVED_KINDS, state_key
@@ -139,16 +140,17 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
     for i, leg in enumerate(route.legs):
         walk = _walk(sub, leg, corners[i], prev_end)
         walks.append(walk)
-        # the next leg starts from this leg's end state, on the side this leg arrives from
+        # a curved next leg starts from this leg's end state, on the side this leg arrives from
+        curved_next = i + 1 < len(route.legs) and route.legs[i + 1].kind in CURVED_KINDS
         prev_end = (
             leg.state
-            if leg.state is not None
+            if leg.state is not None or not curved_next
             else _single(sub, StatePoint(leg.T, leg.p, "?"), walk.last)
         )
     crossings: list[Crossing] = []
     legs: list[LegSummary] = []
     start_state = route.start.state
-    for i, (leg, walk) in enumerate(zip(route.legs, walks, strict=False)):
+    for i, (leg, walk) in enumerate(zip(route.legs, walks, strict=True)):
         step = i + 1
         found: list[Crossing] = []
         if i == 0 and start_state is not None and state_key(start_state) != walk.first:
@@ -210,7 +212,7 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
     ):  # curves built from data: flag extrapolation
         from .custom import range_warnings
 
-        notes += range_warnings(sub, route.corners(), crossings)
+        notes += range_warnings(sub, corners, crossings)
     return Report(route, crossings, legs, notes)
 
 
@@ -266,9 +268,7 @@ def _walk(
 def _walk_curved(
     sub: Substance, leg: Leg, T0: float, p0: float, prev_end: StatePoint | None
 ) -> _Walk:
-    from .route import _processes
-
-    pr = _processes()
+    pr = processes
     assert leg.state is not None
     start = (
         prev_end
@@ -313,11 +313,9 @@ def _walk_curved(
 
 
 def _single(sub: Substance, where: StatePoint, key: tuple[str, str | None]) -> StatePoint:
-    from .processes import single_state
-
     if "+" in key[0]:
         return where
-    return single_state(sub, where.T, where.p, key[0], key[1])
+    return processes.single_state(sub, where.T, where.p, key[0], key[1])
 
 
 def _corner(leg: Leg, state: StatePoint) -> _Candidate:
@@ -336,8 +334,6 @@ def _crossing(
     after: tuple[str, str | None],
     where: str,
 ) -> Crossing:
-    from .processes import describe_change
-
     kind = crossing_kind(before[0], after[0])
     boundary = cand.boundary if where != "corner" else _boundary_name(kind)
     L, model, note = latent_heat(sub, kind, cand.T, cand.p, before, after)
@@ -357,7 +353,7 @@ def _crossing(
         from_form=before[1],
         to_form=after[1],
         at_corner=where == "corner",
-        detail=describe_change(before[0], after[0]),
+        detail=processes.describe_change(before[0], after[0]),
     )
     hz = crossing_hazards(sub, leg_kind, c)
     return replace(c, hazards=hz) if hz else c

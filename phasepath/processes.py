@@ -94,7 +94,7 @@ def _mixture(
     )
 
 
-def _T_on(b: Boundary, p: float) -> float:
+def temperature_on(b: Boundary, p: float) -> float:
     roots = b.temperatures_at(p)
     if not roots:
         raise OutOfRangeError(
@@ -161,7 +161,7 @@ def _fluid_by_flash(
     return single_state(sub, T, p, phase_of(T))
 
 
-def _melting_T(sub: Substance, p: float) -> tuple[float, str | None] | None:
+def melting_temperature(sub: Substance, p: float) -> tuple[float, str | None] | None:
     """Lowest fluid temperature at pressure p (the melting temperature) and the solid's form."""
     best: tuple[float, str | None] | None = None
     for b in sub.melting:
@@ -184,7 +184,7 @@ def flash_p(sub: Substance, p: float, prop: str, value: float) -> StatePoint:
             from .substances import NO_SUBLIMATION
 
             raise OutOfRangeError(f"{what}: below the triple-point pressure, {NO_SUBLIMATION}")
-        T_s = _T_on(sub.sublimation, p)
+        T_s = temperature_on(sub.sublimation, p)
         form = sub.sublimation.solid_form
         vap = phase_props(sub, T_s, p, "vapor")
         if value >= _v(vap, i):
@@ -213,7 +213,7 @@ def flash_p(sub: Substance, p: float, prop: str, value: float) -> StatePoint:
             x = (value - _v(lq, i)) / (_v(vp, i) - _v(lq, i))
             return _mixture(T_s, p, "liquid+vapor", None, lq, vp, x, solid_first=False)
         upper = T_s
-    melt = _melting_T(sub, p)
+    melt = melting_temperature(sub, p)
     T_low = melt[0] if melt else T_t
     fluid_low = phase_props(sub, T_low, p, _fluid_phase(sub, T_low * (1 + 1e-12), p))
     if value >= _v(fluid_low, i) or melt is None:

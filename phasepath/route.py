@@ -14,6 +14,7 @@ from typing import TYPE_CHECKING, Any
 
 from scipy.optimize import brentq
 
+from . import processes
 from .atmosphere import ambient_pressure
 from .errors import OutOfRangeError, PhasePathError, RouteError
 from .report import StatePoint
@@ -136,7 +137,7 @@ class Route:
                 raise OutOfRangeError(f"start density {density!r} is not positive")
             self._check(T0, self.substance.triple[1], "start state", given, T_only=True)
             state = self._guard(
-                lambda: _processes().flash_Tv(self.substance, T0, 1.0 / rho), "start state", given
+                lambda: processes.flash_Tv(self.substance, T0, 1.0 / rho), "start state", given
             )
             self.start = Leg("start", state.T, state.p, given, state=state)
         else:
@@ -178,7 +179,7 @@ class Route:
             raise RouteError(f"{where}: give the end temperature T or the end pressure p, not both")
         start = self.end_state()
         rho = self._need(start.rho, where, start)
-        pr = _processes()
+        pr = processes
         sub = self.substance
         if T is not None:
             T1 = _parse("T", T, f"{where} temperature", sub=self.substance)
@@ -222,7 +223,7 @@ class Route:
         self._check(start.T, p1, f"{where} end state", given, p_only=True)
         sub = self.substance
         end = self._guard(
-            lambda: _processes().flash_p(sub, p1, prop, value), f"{where} end state", given
+            lambda: processes.flash_p(sub, p1, prop, value), f"{where} end state", given
         )
         return self._add(Leg(kind, end.T, end.p, given, state=end))
 
@@ -236,7 +237,7 @@ class Route:
         state = None
         if phase is not None:
             state = self._guard(
-                lambda: _processes().single_state(sub, T, p, phase), f"{where} end state", given
+                lambda: processes.single_state(sub, T, p, phase), f"{where} end state", given
             )
         self._check(T, p, f"{where} end state", given)
         return self._add(Leg(kind, T, p, given, state=state, event=event))
@@ -266,7 +267,7 @@ class Route:
             T0, p0 = self.corners()[-2]
             T, p = T + (T0 - T) * _ARRIVE, p + (p0 - p) * _ARRIVE
         phase, form = self.substance.classify(T, p)
-        return _processes().single_state(self.substance, leg.T, leg.p, phase, form)
+        return processes.single_state(self.substance, leg.T, leg.p, phase, form)
 
     def _add(self, leg: Leg) -> Route:
         end = self.end
@@ -406,15 +407,9 @@ def _given_text(given: dict[str, Any]) -> str:
     return ", ".join(f"{k}={v!r}" if isinstance(v, str) else f"{k}={v}" for k, v in given.items())
 
 
-def _processes() -> Any:
-    from . import processes
-
-    return processes
-
-
 def _isochore_to_p(sub: Substance, start: StatePoint, rho: float, p1: float) -> StatePoint:
     """The state on the isochore through ``start`` where the pressure is p1."""
-    pr = _processes()
+    pr = processes
 
     def gap(T: float) -> float:
         try:
@@ -453,14 +448,12 @@ def _resolve_event(
         )
     if text == "first solid":
         if kind == "isobar":
-            from .processes import _melting_T, _T_on
-
             if p < p_t:
                 if sub.sublimation is None:
                     raise RouteError(f"{where}: {sub.name} has no published sublimation curve")
-                T1 = _T_on(sub.sublimation, p)
+                T1 = processes.temperature_on(sub.sublimation, p)
             else:
-                melt = _melting_T(sub, p)
+                melt = processes.melting_temperature(sub, p)
                 if melt is None:
                     raise RouteError(f"{where}: no melting curve of {sub.name} at p = {p:.6g} Pa")
                 T1 = melt[0]

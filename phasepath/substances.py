@@ -16,7 +16,7 @@ import numbers
 import re
 import threading
 from collections.abc import Mapping
-from functools import cache, lru_cache
+from functools import cache, cached_property, lru_cache
 from typing import Any
 
 from . import bibliography
@@ -301,7 +301,7 @@ class Substance:
     def __repr__(self) -> str:
         return f"<Substance {self.name}>"
 
-    @property
+    @cached_property
     def boundaries(self) -> tuple[Boundary, ...]:
         """Every boundary branch: vapor pressure, melting branches, sublimation."""
         out = [self.vapor] if self.vapor is not None else []
@@ -314,7 +314,7 @@ class Substance:
     def has_sublimation(self) -> bool:
         return self.sublimation is not None
 
-    @property
+    @cached_property
     def junction_temperatures(self) -> tuple[float, ...]:
         """Temperatures where branches start or end (the triple and critical points among them).
 
