@@ -86,7 +86,7 @@ def forget(sub: pp.Substance) -> Callable[[], None]:
         analysis.cache_clear()
         co2._js_terms.cache_clear()  # solid models: one evaluation serves h, s and v
         ice_ih._derivatives.cache_clear()
-        memo = getattr(sub.eos, "_states", None)
+        memo = getattr(sub.fluid, "_states", None)
         if memo is not None:
             memo.clear()
 
@@ -266,9 +266,9 @@ def count_evaluations(route: pp.Route) -> dict[str, float]:
             b.T_of_p = wrap(b.T_of_p)
     try:
         forget(sub)()
-        eos0 = sub.eos.calls if sub.eos is not None else 0
+        eos0 = getattr(sub.fluid, "calls", 0)
         report = route.analyze()
-        eos = (sub.eos.calls - eos0) if sub.eos is not None else 0
+        eos = getattr(sub.fluid, "calls", 0) - eos0
     finally:
         for b, p_of_T, T_of_p in saved:
             b.p_of_T, b.T_of_p = p_of_T, T_of_p
@@ -334,7 +334,7 @@ def section_routes(repeats: int, scan_repeats: int) -> list[str]:
 def section_draw(repeats: int) -> list[str]:
     import importlib
 
-    subs_mod = importlib.import_module("phasepath.substances")  # the module, not the function
+    catalog = importlib.import_module("phasepath.catalog")
 
     lines = ["3. Diagram drawing (substance loaded, boundary curves computed)", ""]
     try:
@@ -356,7 +356,7 @@ def section_draw(repeats: int) -> list[str]:
             return d
 
         def unload() -> None:
-            subs_mod._coolprop_substance.cache_clear()
+            catalog._reference.cache_clear()
             gc.collect()
 
         t_core = median_time(cold_core, repeats, setup=unload)

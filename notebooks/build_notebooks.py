@@ -23,7 +23,8 @@ SAFETY = (
 
 SETUP = """\
 import phasepath as pp
-from phasepath.cli import format_report  # fixed-format text: the same on every machine
+from phasepath import format as F  # numbers with the digits the models support
+from phasepath import format_report  # fixed-format text: the same on every machine
 """
 
 NOTEBOOKS: dict[str, list[tuple[str, str]]] = {}
@@ -95,7 +96,8 @@ print(format_report(report_c, "degC", "bar"))"""),
 # Which vent legs form a solid? (deposition into dry ice, or a crossing flagged for solids)
 for name, report in (("A", report_a), ("B", plan_b.analyze()), ("C", report_c)):
     solid = [c for c in report.crossings if "solid" in c.to_phase]
-    where = ", ".join(f"leg {c.step} at {c.T - 273.15:.2f} degC" for c in solid) or "none"
+    where = ", ".join(f"leg {c.step} at {F.quantity(c.T, 'temperature', 'degC')}"
+                      for c in solid) or "none"
     print(f"plan {name}: solid forms on {where}")"""),
     ("md", """\
 ## Draw and adjust it in the planner
@@ -165,9 +167,10 @@ the triple point: the chamber pressure must stay below it for the whole drying p
 water = pp.substance("water")
 T_t, p_t = water.triple
 sub = next(c for c in report.crossings if c.kind == "sublimation")
-print(f"triple point of water:    {T_t - 273.15:.2f} degC, {p_t:.2f} Pa")
-print(f"sublimation at 13 Pa:     {sub.T - 273.15:.2f} degC")
-print(f"latent heat there:        {sub.latent_heat / 1e3:.0f} kJ/kg")
+print(f"triple point of water:    {F.quantity(T_t, 'temperature', 'degC')}, "
+      f"{F.quantity(p_t, 'pressure')}")
+print(f"sublimation at 13 Pa:     {F.quantity(sub.T, 'temperature', 'degC')}")
+print(f"latent heat there:        {F.quantity(sub.latent_heat, 'energy', 'kJ/kg')}")
 print(f"chamber pressure margin:  {p_t / 13.0:.0f} times below the triple-point pressure")"""),
     ("md", """\
 ## What if the chamber pressure drifts up?
@@ -181,7 +184,8 @@ leak = (
     .isobar(T="25 degC")
 )
 for c in leak.analyze().crossings:
-    print(f"leg {c.step}: {c.kind:12s} at {c.T - 273.15:8.3f} degC, {c.p:.0f} Pa")"""),
+    print(f"leg {c.step}: {c.kind:12s} at {F.quantity(c.T, 'temperature', 'degC')}, "
+          f"{F.quantity(c.p, 'pressure')}")"""),
     ("md", "## The cycle in the planner"),
     ("code", """\
 planner = pp.widgets.RoutePlanner(route=cycle, p_unit="Pa")
@@ -235,11 +239,12 @@ lowest temperature at which 700 MPa stays liquid, follow from the melting curve 
     ("code", """\
 water = pp.substance("water")
 ice6 = next(b for b in water.boundaries if b.label == "melting (ice VI)")
-lo, hi = ice6.T_min - 273.15, ice6.T_max - 273.15
-print(f"ice VI branch: {lo:.2f} degC to {hi:.2f} degC ({ice6.source})")
-print(f"ice VI melting pressure at 5 degC: {ice6.p_of_T(278.15) / 1e6:.1f} MPa")
-T_700, _, _ = ice6.temperatures_at(700e6)[0]
-print(f"700 MPa stays liquid above {T_700 - 273.15:.2f} degC")"""),
+print(f"ice VI branch: {F.quantity(ice6.T_min, 'temperature', 'degC')} to "
+      f"{F.quantity(ice6.T_max, 'temperature', 'degC')} ({ice6.source})")
+print(f"ice VI melting pressure at 5 degC: "
+      f"{F.quantity(ice6.p_of_T(278.15), 'pressure', 'MPa')}")
+T_700 = ice6.temperatures_at(700e6)[0].root
+print(f"700 MPa stays liquid above {F.quantity(T_700, 'temperature', 'degC')}")"""),
     ("md", "## 2. Pressure-assisted thaw at −20 °C: ice III re-entrance"),
     ("code", """\
 probe = pp.Route("water", T="-20 degC", p="1 bar", title="Isotherm at -20 degC to 300 MPa")
@@ -305,7 +310,7 @@ nitrogen isobar give it directly:"""),
 for bath in ("1 atm", "2 bar", "2.5 bar", "3 bar"):
     n2 = pp.Route("nitrogen", T="-205 degC", p=bath).isobar(T="-150 degC")
     boil = n2.analyze().crossings[0]
-    print(f"nitrogen bath at {bath:>7}: boils at {boil.T - 273.15:8.3f} degC")"""),
+    print(f"nitrogen bath at {bath:>7}: boils at {F.quantity(boil.T, 'temperature', 'degC')}")"""),
     ("md", """\
 A bath held at 2.5 bar boils at about −187.2 °C: above argon's freezing point at 1.2 bar
 (−189.3 °C), and below its condensation point (−184.2 °C). The fill plan condenses and
@@ -333,6 +338,249 @@ planner"""),
 * Cryogens: cold burns, embrittlement, trapped-liquid overpressure and oxygen depletion. Use
   oxygen monitors and relief valves on every section that can trap liquid; defer to local
   codes, the gas supplier's instructions and licensed practice."""),
+]
+
+NOTEBOOKS["custom_solvent.ipynb"] = [
+    ("md", """\
+# A solvent the reference library does not know: a phase diagram from its data sheet
+
+*Lanthorn Fine Chemicals* sells **Solvane 40**, a process solvent that no reference equation of
+state covers. The supplier, the product and every number below are **invented for this demo**.
+The Brackwater pilot plant wants to boil it off a batch in vessel V-7 (also invented), compress
+the vapor and store the condensate cold, and needs to know, leg by leg, where it boils, condenses
+and freezes.
+
+phasepath builds the diagram from the data sheet with the published methods (Antoine fit of the
+measured vapor pressures, Clausius–Clapeyron, a straight melting line), and says where the curves
+rest on data and where they do not.
+
+> **Safety.** Hot solvent vapor under pressure can burn, ignite and rupture equipment; boiling a
+> solvent in a closed vessel raises its pressure fast. Cold, frozen solvent can block lines and
+> relief paths. This notebook plans states; it does not size equipment or relief. Follow the
+> safety data sheet, your site's rules and the local pressure-equipment codes, and have the
+> design checked by licensed engineers."""),
+    ("code", """\
+import phasepath as pp
+from phasepath import format as F  # numbers with the digits the models support
+
+# Solvane 40 technical data sheet, Lanthorn Fine Chemicals (invented for this demo)
+sheet = dict(
+    vapor_points=[("50 degC", "0.85 kPa"), ("75 degC", "3.09 kPa"), ("100 degC", "9.05 kPa"),
+                  ("125 degC", "22.99 kPa"), ("150 degC", "50.74 kPa"),
+                  ("175 degC", "101.6 kPa"), ("200 degC", "188.65 kPa")],
+    normal_boiling_point="175 degC",
+    critical=("338 degC", "29.5 bar"),          # supplier's estimate
+    melting_point="-38.5 degC",
+    melting_slope="2.9 MPa/K",                   # supplier's estimate
+    enthalpy_fusion="15.2 kJ/mol",
+    molar_mass="128.2 g/mol",
+    source="Lanthorn Fine Chemicals, Solvane 40 data sheet rev. C (invented)",
+)
+solvane = pp.Substance.from_data("Solvane 40", **sheet)
+print(solvane)
+for name, (T, p) in (("triple point", solvane.triple), ("critical point", solvane.critical)):
+    print(f"{name}: T = {F.quantity(T, 'temperature')}, p = {F.quantity(p, 'pressure')}")"""),
+    ("md", """\
+## What the diagram rests on
+
+Seven measured points are fitted by the Antoine form (it follows the curvature of ln p against
+1/T); the two-parameter Clausius–Clapeyron enthalpy is reported alongside with its uncertainty.
+Every note below comes from the substance itself."""),
+    ("code", """\
+for note in solvane.notes:
+    print("-", note)"""),
+    ("code", """\
+fits = solvane.source_data.fits
+antoine, line = fits["vapor"], fits["clausius-clapeyron"]
+q, e = antoine.params, antoine.stderr  # each fitted value to the digits its error supports
+print("Antoine: " + ", ".join(f"{k} = {F.fitted(q[k], e[k])} ± {F.significant(e[k], 2)}"
+                              for k in "ABC"))
+dH, sd = line.enthalpy() / 1e3, line.enthalpy_stderr / 1e3
+print(f"Clausius-Clapeyron enthalpy of vaporization: {F.fitted(dH, sd)} ± "
+      f"{F.significant(sd, 2)} kJ/mol")
+print(f"rms residual: Antoine {F.significant(100 * antoine.rms, 2)} %, "
+      f"straight line {F.significant(100 * line.rms, 2)} %")
+print("   T [°C]   measured [kPa]   fitted [kPa]")
+for T, p in antoine.points:
+    fitted = antoine.pressure(T)
+    print(f"{F.temperature(T, 'degC'):>9} {F.pressure(p, 'kPa'):>16} {F.pressure(fitted, 'kPa'):>14}")"""),
+    ("md", """\
+## The route in vessel V-7
+
+1. heat the liquid at 1.5 bar from 20 °C to 210 °C (it boils on the way);
+2. compress the vapor at 210 °C to 15 bar (it condenses);
+3. cool the condensate at 15 bar to −50 °C (it freezes)."""),
+    ("code", """\
+route = (pp.Route(solvane, T="20 degC", p="1.5 bar", title="V-7 boil-off and cold storage")
+         .isobar(T="210 degC")
+         .isotherm(p="15 bar")
+         .isobar(T="-50 degC"))
+report = route.analyze()
+print(pp.format_report(report, "degC", "bar"))"""),
+    ("md", """\
+The latent heats are approximate: Clausius–Clapeyron with the vapor taken as an ideal gas
+(it runs a few percent high near 1 bar and more at higher pressure), and the given enthalpy of
+fusion. With no equation of state, heat and work per leg are not computed, and the report says so:"""),
+    ("code", """\
+for leg in report.legs:
+    print(f"leg {leg.step} ({leg.kind}): {leg.start.phase} -> {leg.end.phase}; heat: {leg.heat} ({leg.note})")"""),
+    ("md", """\
+## Where the route leaves the data
+
+The condensation at 210 °C lies above the highest measured point (200 °C), and the freezing at
+15 bar lies on the melting line far above the one measured melting point (1 atm). The report warns:"""),
+    ("code", """\
+for note in report.notes:
+    if note.startswith("Warning"):
+        print("-", note)"""),
+    ("code", """\
+import matplotlib
+
+matplotlib.use("Agg")
+import matplotlib.pyplot as plt
+
+fig, ax = plt.subplots(figsize=(6.4, 4.4))
+for b in solvane.boundaries:
+    T, p = b.curve()
+    ax.semilogy(T, p, color="0.6", lw=1, ls="--")          # the whole branch
+    lo, hi = b.T_valid or (b.T_min, b.T_max)
+    keep = (T >= lo) & (T <= hi)
+    ax.semilogy(T[keep], p[keep], lw=2.2, label=f"{b.label} (data)")
+Tr, pr = zip(*route.corners())
+ax.semilogy(Tr, pr, "k-o", ms=4, label="route")
+for c in report.crossings:
+    ax.semilogy(c.T, c.p, "s", mfc="white", mec="k")
+ax.set_xlabel("T [K]"); ax.set_ylabel("p [Pa]")
+ax.set_title("Solvane 40: solid lines rest on data, dashed are extrapolated")
+ax.legend(fontsize=8, loc="lower right")
+fig.tight_layout()
+plt.show()"""),
+    ("md", """\
+## When to trust such a diagram
+
+* **Inside the data, the boiling curve is as good as the data.** Fitted to measured points with
+  the Antoine form, boiling temperatures are typically within a few hundredths of a kelvin of the
+  data's own curve; the residual table above shows how well the points agree with it.
+* **A straight line in ln p against 1/T is not enough over a wide range.** Over 100 K the
+  two-parameter Clausius–Clapeyron line misplaces a boiling point by about half a kelvin; give
+  three or more points and let the Antoine fit follow the curvature.
+* **Outside the data, every curve is an extrapolation.** Between the last point and the critical
+  point the curve is a bridge through an estimated critical point; the report flags every crossing
+  there. Treat those temperatures as estimates (a kelvin or so) and measure if they matter.
+* **The melting and sublimation curves are thin.** A melting point and an estimated slope give a
+  line that is fair within a few bar of the measured point and rough at tens of bar; the
+  sublimation curve assumes a constant enthalpy.
+* **Latent heats are approximate, heat and work are not given.** With no equation of state,
+  latent heats come from Clausius–Clapeyron with an ideal gas (a few percent high near 1 bar, worse
+  toward the critical point).
+* **Missing data are missing.** A curve not given is not drawn, and no crossing is reported on it:
+  a route may freeze where this diagram has no melting curve.
+
+Use such a diagram for planning and review, not for design margins; confirm the critical legs with
+measurements or a reference equation of state, and follow local codes and licensed practice."""),
+]
+
+
+NOTEBOOKS["planner.ipynb"] = [
+    ("md", """\
+# Route planner
+
+Draw a compression and heating route on a substance's pressure–temperature phase diagram and read,
+leg by leg, where it boils, condenses, melts, freezes, sublimes, deposits or goes supercritical.
+
+**How to use the planner below**
+
+* Pick a substance (type to filter); substances you built in this session with
+  `pp.Substance.from_data` are listed first. Choose the display units.
+* *draw* mode: the first click places the start; each further click adds a leg of the kind chosen:
+  **constant T** (an isotherm: only the pressure of the click is used), **constant p** (an isobar:
+  only its temperature), **constant v** (a sealed vessel: the click sets the end temperature),
+  **constant h** (a valve or vent) and **constant s** (an ideal compressor or expander): the click
+  sets the end pressure. **auto** picks constant T or constant p from the click's direction. For a
+  curved leg the corner lands where the equation of state puts the end state, and the line follows
+  the leg's true path, along the saturation curve while the state is two-phase.
+* **ends**: leave it empty to end a constant-p or constant-T leg at the click, or pick an event
+  (*fully vapor*, *first liquid*, *first solid*, *5 K superheat*, …; type another number of kelvin).
+* Drag a corner to try another pressure or temperature: the legs on either side stay true to their
+  kind. Type exact values in the leg list, or type a whole new leg under it (kind, target or
+  `until fully vapor`). The start's p field also takes a fill density (`450 kg/m3`).
+  **undo**, **redo**, **clear**, and the trash button per corner.
+* *pan/zoom* mode: drag to pan, scroll to zoom; **fit** brings the whole route back.
+* Hover a crossing mark or a table row to see its conditions. The tables show what happens at each
+  crossing, the vapor and solid fractions at the end of each leg and the hazard flags (⚠); the
+  cautions box lists their cautions. **files** prepares the route file and the tables as CSV;
+  **PNG** and **SVG** save the diagram."""),
+    ("md", """\
+> **Cautions.** The numbers are model values for planning, not a safety assessment. Compressed
+> gases and liquids store energy: vessels, lines and relief devices must be rated for the route's
+> highest pressure, and a sealed vessel that runs liquid-full can burst on a small warming.
+> Cryogenic liquids and dry ice cause cold burns, and trapped cold liquid builds pressure as it
+> warms; liquid CO2 let down below its triple-point pressure forms dry-ice snow that can plug lines
+> and relief devices. CO2, nitrogen and argon displace air (asphyxiation risk in closed rooms).
+> Hot water and steam scald. Follow local codes, the equipment's ratings and licensed practice."""),
+    ("md", """\
+## Example: charging a CO2 buffer vessel
+
+*Invented scenario.* Kestrel Bay Beverage Co. fills a buffer vessel, tag BV-7, from a vapor header
+at −30 °C and 5 bar: the gas is compressed at constant temperature to 40 bar, then warmed at 40 bar
+to +20 °C before it goes to the carbonators. Where does it condense and where does it boil again?"""),
+    ("code", """\
+import phasepath as pp
+
+route = (pp.Route("CO2", T="-30 degC", p="5 bar", title="BV-7 charging")
+         .isotherm(p="40 bar")
+         .isobar(T="20 degC"))"""),
+    ("code", """\
+# NBVAL_IGNORE_OUTPUT
+planner = pp.widgets.RoutePlanner(route, T_unit="degC", p_unit="bar")
+planner"""),
+    ("md", """\
+The planner's current route and report are plain Python objects: `planner.route`,
+`planner.report`. Drawing on the diagram changes them; assigning `planner.route = ...` redraws."""),
+    ("code", """\
+print(pp.format_report(planner.report, "degC", "bar"))"""),
+    ("code", """\
+table = planner.crossings_table()  # the same numbers as a DataFrame, in the display units
+print(list(table.columns))"""),
+    ("md", """\
+## Start empty and draw
+
+An empty planner for another substance: click on the diagram to place the start, then click
+to add legs."""),
+    ("code", """\
+# NBVAL_IGNORE_OUTPUT
+pp.widgets.RoutePlanner("water", T_unit="degC", p_unit="kPa")"""),
+    ("md", """\
+## Example: venting a CO2 line through a valve
+
+*Invented scenario.* At the Marrow Creek test bay, a technician plans to vent a short line of
+liquid CO2 at 20 °C and 60 bar to atmosphere through a hand valve. The valve is a constant-enthalpy
+leg: where does the liquid start to boil, and what leaves the valve at 1 atm?"""),
+    ("code", """\
+vent = pp.Route("CO2", T="20 degC", p="60 bar", title="Marrow Creek vent").isenthalp(p="1 atm")
+vent_planner = pp.widgets.RoutePlanner(vent, T_unit="degC", p_unit="bar")
+print(pp.format_report(vent_planner.report, "degC", "bar"))"""),
+    ("code", """\
+from phasepath import format as F
+
+end = vent_planner.report.legs[0].end
+print(f"leaves the valve at {F.quantity(end.T, 'temperature', 'degC')} as {end.phase}: "
+      f"solid fraction {F.fraction(end.solid_fraction)} (dry-ice snow), "
+      f"vapor fraction {F.fraction(end.vapor_fraction)} by mass")"""),
+    ("code", """\
+# NBVAL_IGNORE_OUTPUT
+vent_planner"""),
+    ("md", """\
+## A substance built from data
+
+*Invented data.* A solvent known only from three measured vapor pressures between 300 K and 350 K
+(no triple or critical point given): once built, it is offered in every planner's substance picker,
+and its curve is drawn dotted wherever it rests on no data."""),
+    ("code", """\
+solvent = pp.Substance.from_data(
+    "demo solvent K-12", triple=(180.0, None), critical=(560.0, 4.5e6),
+    vapor_points=[(300.0, 5.0e3), (325.0, 1.6e4), (350.0, 4.0e4)])
+print(solvent.name in pp.widgets.RoutePlanner("CO2").picker.options)"""),
 ]
 
 

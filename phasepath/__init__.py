@@ -4,22 +4,25 @@ from __future__ import annotations
 
 from . import errors
 from .batch import analyze_many
+from .catalog import substance, substances
 from .errors import (
     BatchError,
     NonFiniteError,
     OutOfRangeError,
     PhasePathError,
     PropertyError,
+    ResultsFileError,
     RouteError,
     RouteFileError,
     UnitError,
     UnknownSubstanceError,
 )
-from .report import Crossing, LegSummary, Report, StatePoint
-from .route import Leg, Route
-from .substances import Substance, substance, substances
-
-__version__ = "0.1.0"
+from .records import Crossing, Hazard, Leg, LegSummary, StatePoint
+from .report import Report
+from .route import Route
+from .substances import Substance
+from .tables import format_report
+from .version import __version__
 
 __all__ = [
     "substance",
@@ -28,10 +31,12 @@ __all__ = [
     "Route",
     "Leg",
     "analyze_many",
+    "format_report",
     "Report",
     "Crossing",
     "LegSummary",
     "StatePoint",
+    "Hazard",
     "errors",
     "PhasePathError",
     "UnknownSubstanceError",
@@ -41,6 +46,7 @@ __all__ = [
     "RouteError",
     "PropertyError",
     "RouteFileError",
+    "ResultsFileError",
     "BatchError",
     "__version__",
 ]

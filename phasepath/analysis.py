@@ -1,4 +1,4 @@
-"""The crossing analyser: legs x boundary branches -> crossings. The only place that root-finds.
+"""The crossing analyser: legs x boundary branches -> crossings, leg summaries, notes, cautions.
 
 Method
 ------
@@ -7,8 +7,9 @@ For each leg every point where the leg meets a boundary branch is a *candidate*:
 * constant-temperature leg: each branch covering T is evaluated directly at T (one call);
   the critical isobar p = p_c is a candidate when T > T_c;
 * constant-pressure leg: each branch is inverted at p, directly where its source offers an
-  inverse (CoolProp's saturation and melting lines), else by ``brentq`` on the exact equation
-  inside a bracket from the branch's cached sample; the temperatures where branches start or end
+  inverse (CoolProp's saturation and melting lines), else by the root finder
+  (:mod:`phasepath.rootfind`) on the exact equation inside a bracket from the branch's cached
+  sample; the temperatures where branches start or end
   (triple point, critical point, water's ice junctions) are candidates too.
 
 The candidates cut the leg into intervals; the phase of each interval is the phase of its
@@ -31,78 +32,42 @@ a leg are one point, so a leg running through the triple point changes phase the
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 from dataclasses import dataclass, replace
 from functools import lru_cache
 from typing import TYPE_CHECKING
 
-from . import processes
+from . import states
+from .correlations.atmosphere import ambient_pressure
+from .energetics import latent_heat, leg_heat_work
 from .errors import PhasePathError, RouteError
-from .hazards import crossing_hazards, leg_hazards
-from .processes import CURVED_KINDS, state_key
-from .report import Crossing, LegSummary, Report, StatePoint
-from .thermo import BASES, latent_heat, leg_heat_work
+from .hazards import cautions, crossing_hazards, leg_hazards
+from .paths import trace
+from .records import (
+    BASES,
+    CURVED_KINDS,
+    Crossing,
+    LegSummary,
+    StatePoint,
+    boundary_of,
+    crossing_kind,
+    describe_change,
+    state_key,
+)
+from .report import Report
 
 if TYPE_CHECKING:  # pragma: no cover
-    from .route import Leg, Route
+    from .records import Leg
+    from .route import Route
     from .substances import Substance
 
-__all__ = ["analyze", "crossing_kind", "TOLERANCE"]
+__all__ = ["analyze", "range_warnings", "TOLERANCE", "cache_clear"]
 
 #: Relative distance below which a candidate counts as sitting on a leg's end, and below which
 #: two candidates count as one point (three curves meeting at a triple point).
 _END_TOL = 1e-9
 #: Guaranteed relative agreement between a crossing and its boundary.
 TOLERANCE = 1e-9
-
-_KIND = {
-    ("solid", "liquid"): "melting",
-    ("liquid", "solid"): "freezing",
-    ("liquid", "vapor"): "vaporization",
-    ("vapor", "liquid"): "condensation",
-    ("solid", "vapor"): "sublimation",
-    ("vapor", "solid"): "deposition",
-    ("vapor", "supercritical"): "supercritical-entry",
-    ("liquid", "supercritical"): "supercritical-entry",
-    ("supercritical", "vapor"): "supercritical-exit",
-    ("supercritical", "liquid"): "supercritical-exit",
-    ("solid", "supercritical"): "melting",
-    ("supercritical", "solid"): "freezing",
-}
-
-
-def crossing_kind(from_phase: str, to_phase: str) -> str:
-    """Name of the transition from one phase (or mixture on a boundary) to another.
-
-    >>> crossing_kind("vapor", "solid")
-    'deposition'
-    >>> crossing_kind("liquid+vapor", "solid+vapor")
-    'deposition'
-    >>> crossing_kind("liquid+vapor", "supercritical")
-    'supercritical-entry'
-    """
-    if (from_phase, to_phase) in _KIND:
-        return _KIND[(from_phase, to_phase)]
-    b, a = set(from_phase.split("+")), set(to_phase.split("+"))
-    if "solid" in a and "vapor" in a and "solid" not in b:
-        return "deposition"  # solid now forms beside the vapor (dry-ice snow)
-    if "solid" in b and "vapor" in b and "solid" not in a:
-        return "sublimation" if "liquid" not in a else "melting"
-    lost, gained = b - a, a - b
-    one = (lost.pop() if len(lost) == 1 else None, gained.pop() if len(gained) == 1 else None)
-    if one[0] and one[1] and one in _KIND:
-        return _KIND[one]  # type: ignore[index]
-    both = sorted(b | a)
-    if len(both) == 2:
-        x, y = both
-        if (x, y) in _KIND and (y in a - b or x in b - a):
-            return _KIND[(x, y)]
-        if (y, x) in _KIND:
-            return _KIND[(y, x)]
-    if "+" in from_phase and to_phase == "supercritical":
-        return "supercritical-entry"  # a sealed vessel at the critical density
-    if from_phase == "supercritical" and "+" in to_phase:
-        return "supercritical-exit"
-    raise RouteError(f"no name for a change from {from_phase} to {to_phase}")
 
 
 @dataclass(frozen=True)
@@ -207,13 +172,8 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
     notes = list(sub.notes)
     if route.elevation is not None:
         notes.append(_ambient_note(sub, route.elevation))
-    if any(
-        b.T_valid is not None for b in sub.boundaries
-    ):  # curves built from data: flag extrapolation
-        from .custom import range_warnings
-
-        notes += range_warnings(sub, corners, crossings)
-    return Report(route, crossings, legs, notes)
+    notes += range_warnings(sub, corners, crossings)
+    return Report(route, crossings, legs, notes, cautions(sub, legs, crossings))
 
 
 @dataclass(frozen=True)
@@ -248,7 +208,7 @@ def _walk(
                     x,
                     leg.T,
                     leg.p,
-                    _boundary_name(crossing_kind(last[0], leg.state.phase)),
+                    boundary_of(crossing_kind(last[0], leg.state.phase)),
                     "event",
                     0,
                 ),
@@ -268,7 +228,6 @@ def _walk(
 def _walk_curved(
     sub: Substance, leg: Leg, T0: float, p0: float, prev_end: StatePoint | None
 ) -> _Walk:
-    pr = processes
     assert leg.state is not None
     start = (
         prev_end
@@ -279,7 +238,7 @@ def _walk_curved(
         v = 1.0 / (start.rho or leg.state.rho or 1.0)
 
         def state_at(x: float) -> StatePoint:
-            return pr.flash_Tv(sub, x, v)
+            return states.flash_Tv(sub, x, v)
 
         x0, x1, geometric = T0, leg.T, False
     else:
@@ -288,17 +247,17 @@ def _walk_curved(
         assert value is not None
 
         def state_at(x: float) -> StatePoint:
-            return pr.flash_p(sub, x, prop, value)
+            return states.flash_p(sub, x, prop, value)
 
         x0, x1, geometric = p0, leg.p, True
-    states, events = pr.trace(state_at, x0, x1, geometric, first=start)
+    path, events = trace(state_at, x0, x1, geometric, first=start)
     found = []
     T_c, p_c = sub.critical
     for before, after, count in events:
         on = after if "+" in after.phase else before
         x = on.T if leg.kind == "isochore" else on.p
         kind = crossing_kind(before.phase, after.phase)
-        label = _boundary_name(kind)
+        label = boundary_of(kind)
         if "+" in before.phase and "+" in after.phase:
             label = "triple point"
         elif kind.startswith("supercritical"):
@@ -309,13 +268,13 @@ def _walk_curved(
             )
         cand = _Candidate(x, on.T, on.p, label, "bisection", count)
         found.append((cand, state_key(before), state_key(after)))
-    return _Walk(state_key(states[0]), state_key(states[-1]), tuple(found), tuple(states))
+    return _Walk(path[0].key, path[-1].key, tuple(found), tuple(path))
 
 
 def _single(sub: Substance, where: StatePoint, key: tuple[str, str | None]) -> StatePoint:
     if "+" in key[0]:
         return where
-    return processes.single_state(sub, where.T, where.p, key[0], key[1])
+    return states.single_state(sub, where.T, where.p, key[0], key[1])
 
 
 def _corner(leg: Leg, state: StatePoint) -> _Candidate:
@@ -335,8 +294,8 @@ def _crossing(
     where: str,
 ) -> Crossing:
     kind = crossing_kind(before[0], after[0])
-    boundary = cand.boundary if where != "corner" else _boundary_name(kind)
-    L, model, note = latent_heat(sub, kind, cand.T, cand.p, before, after)
+    boundary = cand.boundary if where != "corner" else boundary_of(kind)
+    L = latent_heat(sub, kind, cand.T, cand.p, before, after)
     c = Crossing(
         step=step,
         kind=kind,
@@ -344,44 +303,31 @@ def _crossing(
         to_phase=after[0],
         T=cand.T,
         p=cand.p,
-        latent_heat=L,
-        latent_heat_model=model,
-        latent_heat_note=note,
+        latent_heat=L.value,
+        latent_heat_model=L.model,
+        latent_heat_note=L.note,
         boundary=boundary,
         method=cand.method,
         evaluations=cand.evaluations,
         from_form=before[1],
         to_form=after[1],
         at_corner=where == "corner",
-        detail=processes.describe_change(before[0], after[0]),
+        detail=describe_change(before[0], after[0]),
     )
     hz = crossing_hazards(sub, leg_kind, c)
     return replace(c, hazards=hz) if hz else c
 
 
 def _ambient_note(sub: Substance, elevation: float) -> str:
-    from .atmosphere import ambient_pressure
-
     p = ambient_pressure(elevation)
     text = (
         f"Site elevation {elevation:g} m: ambient pressure {p:.6g} Pa "
         "(U.S. Standard Atmosphere 1976)"
     )
     if sub.vapor is not None and sub.triple[1] <= p <= sub.critical[1]:
-        T_b = sub.vapor.temperatures_at(p)[0][0]
+        T_b = sub.vapor.temperatures_at(p)[0].root
         text += f"; {sub.name} boils there at {T_b:.6g} K ({T_b - 273.15:.2f} °C)"
     return text + "."
-
-
-def _boundary_name(kind: str) -> str:
-    return {
-        "melting": "melting",
-        "freezing": "melting",
-        "vaporization": "vapor pressure",
-        "condensation": "vapor pressure",
-        "sublimation": "sublimation",
-        "deposition": "sublimation",
-    }.get(kind, "critical point region")
 
 
 @lru_cache(maxsize=4096)
@@ -463,8 +409,8 @@ def _isobar_candidates(sub: Substance, p: float, T0: float, T1: float) -> list[_
     for b in sub.boundaries:
         if b.T_max < lo or b.T_min > hi:
             continue
-        for T, method, n in b.temperatures_at(p):
-            out.append(_Candidate(T, T, p, b.label, method, n))
+        for r in b.temperatures_at(p):
+            out.append(_Candidate(r.root, r.root, p, b.label, r.method, r.evaluations))
     T_c = sub.critical[0]
     for T in sub.junction_temperatures:
         if lo < T < hi:
@@ -477,3 +423,39 @@ def cache_clear() -> None:
     """Forget cached leg traces and crossing records (for benchmarks of cold analysis)."""
     _trace.cache_clear()
     _crossing.cache_clear()
+
+
+def range_warnings(
+    sub: Substance, corners: Sequence[tuple[float, float]], crossings: Sequence[Crossing]
+) -> list[str]:
+    """Warnings for a route that leaves the data range of a boundary (``Boundary.T_valid``).
+
+    One line for each crossing that lies on a boundary outside its data range, and one for the
+    route's states whose phase rests on the extrapolated (or bridged) part of the vapor-pressure
+    curve.
+    """
+    ranged = {b.label: b for b in sub.boundaries if b.T_valid is not None}
+    out = []
+    for c in crossings:
+        b = ranged.get(c.boundary)
+        if b is None or b.T_valid is None:
+            continue
+        lo, hi = b.T_valid
+        if not (lo * (1 - 1e-9) <= c.T <= hi * (1 + 1e-9)):
+            out.append(
+                f"Warning: leg {c.step} crosses the {b.label} curve at T = {c.T:.5g} K, "
+                f"outside the range of its data ({lo:.5g} K to {hi:.5g} K): the curve is "
+                "extrapolated there and the crossing is uncertain."
+            )
+    v = ranged.get("vapor pressure")
+    if v is not None and v.T_valid is not None:
+        lo, hi = v.T_valid
+        outside = sorted({T for T, _ in corners if v.T_min <= T <= v.T_max and not (lo <= T <= hi)})
+        if outside:
+            Ts = ", ".join(f"{T:.5g} K" for T in outside)
+            out.append(
+                f"Warning: the route reaches {Ts}, outside the range of the vapor-pressure "
+                f"data ({lo:.5g} K to {hi:.5g} K): the phases there rest on the "
+                "extrapolated curve."
+            )
+    return out

@@ -239,15 +239,13 @@ def _assemble(items: list[Any], results: list[Any]) -> list[Report]:
 
 
 def _rebuild_error(name: str, message: str) -> PhasePathError:
-    """The error class the worker raised, with its message (built without its __init__)."""
+    """The error class the worker raised, with its message."""
     from . import errors
 
     cls = getattr(errors, name, PhasePathError)
     if not (isinstance(cls, type) and issubclass(cls, PhasePathError)):
         cls = PhasePathError
-    exc = cls.__new__(cls)
-    Exception.__init__(exc, message)
-    return exc
+    return cls(message)
 
 
 def _progress_bar(total: int, enabled: bool) -> Any:

@@ -3,7 +3,8 @@
 A :class:`Boundary` is one branch of one curve (the vapor-pressure curve, one melting branch, the
 sublimation curve). It evaluates the published equation exactly, inverts it directly where the
 source offers an inverse (CoolProp's saturation and melting lines) and otherwise by a bracketed
-root finder on the exact equation, and keeps a cached sample for drawing and bracketing.
+root finder on the exact equation (:mod:`phasepath.rootfind`), and keeps a cached sample for
+drawing and bracketing.
 """
 
 from __future__ import annotations
@@ -13,14 +14,11 @@ from collections.abc import Callable
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.optimize import brentq
 
 from .errors import OutOfRangeError, PhasePathError
+from .rootfind import RootResult, find_root, nearest_float_root
 
-__all__ = ["Boundary", "KINDS"]
-
-#: The three kinds of first-order boundary between phases.
-KINDS = ("vaporization", "melting", "sublimation")
+__all__ = ["Boundary"]
 
 _SAMPLES = 96  # nodes of the cached sample used for bracketing
 
@@ -96,19 +94,16 @@ class Boundary:
         keep = (p >= p_floor) & (p <= p_ceiling)
         return T[keep], p[keep]
 
-    def temperatures_at(self, p: float) -> list[tuple[float, str, int]]:
-        """Every temperature on the branch where its pressure equals p.
+    def temperatures_at(self, p: float) -> list[RootResult]:
+        """Every temperature on the branch where its pressure equals p, in rising T.
 
-        Returns a list of ``(T, method, evaluations)``. A direct inverse is used where the source
-        has one. Otherwise each sign change of the cached sample brackets a root, and the root is
-        refined on the exact equation from the sample's interpolant (``"secant"``: a guess
-        interpolated in ln p against 1/T, or in p against T on melting branches, then one Newton
-        step with the interpolant's slope and secant steps, each kept inside the bracket), until
-        the branch pressure is within 1e-12 of p, usually after two or three evaluations. Where
-        that tolerance lies below one float step in T (steep branches at low pressure: ice Ih
-        melting, about -13 MPa/K, at 1 kPa) the refinement stops at the float nearest the root
-        (|p_of_T(T) - p| within 0.6 of the slope times one float step); anything unexpected
-        falls back to ``brentq``.
+        A direct inverse is used where the source has one (``method`` "direct"). Otherwise each
+        sign change of the cached sample brackets a root, refined by
+        :func:`phasepath.rootfind.find_root` on the exact equation from a guess interpolated in
+        ln p against 1/T (in p against T on melting branches), until the branch pressure is
+        within 1e-12 of p, usually after two or three evaluations. Where that tolerance lies
+        below one float step in T (steep branches at low pressure: ice Ih melting, about
+        -13 MPa/K, at 1 kPa) the root is the float nearest it.
         """
         T, pp = self.sample()
         lo, hi, monotonic = self._span()
@@ -120,19 +115,19 @@ class Boundary:
             except PhasePathError:
                 t = math.nan  # the source's inverse refused: fall back to the bracketed search
             if self.T_min <= t <= self.T_max:
-                return [(t, "direct", 1)]
-        out: list[tuple[float, str, int]] = []
+                return [RootResult(t, 1, True, "direct", (self.T_min, self.T_max))]
+        out: list[RootResult] = []
         f = pp - p
         for i in np.nonzero(f[:-1] * f[1:] <= 0.0)[0].tolist():
             a, b = f[i], f[i + 1]
             if a == 0.0:
-                out.append((float(T[i]), "node", 1))
+                out.append(RootResult(float(T[i]), 1, True, "node", (float(T[i]), float(T[i]))))
             elif b != 0.0:
                 out.append(
                     self._refine(p, float(T[i]), float(T[i + 1]), float(pp[i]), float(pp[i + 1]))
                 )
         if f[-1] == 0.0:
-            out.append((float(T[-1]), "node", 1))
+            out.append(RootResult(float(T[-1]), 1, True, "node", (float(T[-1]), float(T[-1]))))
         return out
 
     def _span(self) -> tuple[float, float, bool]:
@@ -143,18 +138,12 @@ class Boundary:
             self._shape = (float(pp.min()), float(pp.max()), bool(np.all(d > 0) or np.all(d < 0)))
         return self._shape
 
-    def _refine(
-        self, p: float, Ta: float, Tb: float, pa: float, pb: float
-    ) -> tuple[float, str, int]:
+    def _refine(self, p: float, Ta: float, Tb: float, pa: float, pb: float) -> RootResult:
         """The root of p_of_T(T) = p between two sample nodes whose pressures straddle p."""
-        count = 0
 
         def g(t: float) -> float:
-            nonlocal count
-            count += 1
             return self.p_of_T(t) - p
 
-        ga = pa - p  # exact value at a node, known from the sample
         # guess and slope from the interpolant through the two nodes
         if self.kind != "melting" and pa > 0.0 and pb > 0.0 and p > 0.0:
             k = math.log(pb / pa) / (1.0 / Tb - 1.0 / Ta)  # ln p = c + k / T
@@ -162,41 +151,26 @@ class Boundary:
             slope = -k * p / (t0 * t0)
         else:
             slope = (pb - pa) / (Tb - Ta)
-            t0 = Ta - ga / slope
-        lo, hi = min(Ta, Tb), max(Ta, Tb)
+            t0 = Ta - (pa - p) / slope
         if not (math.isfinite(t0) and math.isfinite(slope) and slope != 0.0):
             t0, slope = 0.5 * (Ta + Tb), (pb - pa) / (Tb - Ta)
-        t0 = min(max(t0, lo), hi)
         # within 1e-12 of p, or within about half a float step in T of the root (steep branches)
         tol = max(1e-12 * abs(p), 0.6 * abs(slope) * math.ulp(t0))
-        g0 = g(t0)
-        if abs(g0) <= tol:
-            return t0, "secant", count
-        t1 = min(max(t0 - g0 / slope, lo), hi)  # one Newton step with the interpolant's slope
-        for _ in range(8):
-            if t1 == t0:
-                break
-            g1 = g(t1)
-            if abs(g1) <= tol:
-                return t1, "secant", count
-            step = g1 * (t1 - t0) / (g1 - g0) if g1 != g0 else 0.0
-            t0, g0, t1 = t1, g1, t1 - step
-            if not (lo <= t1 <= hi):
-                break
-        if abs(t1 - t0) <= 4 * math.ulp(t0):  # converged below the tolerance's float step
-            return _nearest_float_root(g, t0), "secant", count
-        root = brentq(g, Ta, Tb, xtol=1e-300, rtol=4 * np.finfo(float).eps)
-        return _nearest_float_root(g, float(root)), "brentq", count
+        r = find_root(g, Ta, Tb, f_lo=pa - p, f_hi=pb - p, guess=t0, slope=slope, ftol=tol)
+        if r.method == "secant":
+            return r
+        polished = nearest_float_root(g, r.root)
+        return RootResult(polished, r.evaluations + 8, r.converged, r.method, r.bracket)
 
+    def slope(self, T: float) -> float:
+        """d(ln p)/dT along the branch [1/K] at T: central difference, second-order one-sided at
+        the branch's ends (h = 1e-3 K)."""
+        h = 1e-3
 
-def _nearest_float_root(g: Callable[[float], float], t: float, reach: int = 4) -> float:
-    """The float within ``reach`` steps of t where |g| is smallest (t itself on ties)."""
-    best, g_best = t, abs(g(t))
-    for direction in (math.inf, -math.inf):
-        x = t
-        for _ in range(reach):
-            x = math.nextafter(x, direction)
-            gx = abs(g(x))
-            if gx < g_best:
-                best, g_best = x, gx
-    return best
+        def g(t: float) -> float:
+            return math.log(self.p_of_T(t))
+
+        if T - h >= self.T_min and T + h <= self.T_max:
+            return (g(T + h) - g(T - h)) / (2 * h)
+        s = 1.0 if T - h < self.T_min else -1.0
+        return s * (-3 * g(T) + 4 * g(T + s * h) - g(T + 2 * s * h)) / (2 * h)

@@ -14,7 +14,7 @@ import CoolProp.CoolProp as CP
 
 from .errors import OutOfRangeError, PropertyError
 
-__all__ = ["EOS", "fluid_names"]
+__all__ = ["EOS", "fluid_names", "fluid_aliases", "fluid_info", "library_version"]
 
 _STATE_CACHE = 4096  # remembered single-phase states per substance
 
@@ -26,8 +26,23 @@ _PHASE_FLAG = {
 
 
 def fluid_names() -> list[str]:
-    """Every pure fluid CoolProp 8 knows, by its CoolProp name."""
+    """Every fluid CoolProp 8 knows, by its CoolProp name."""
     return sorted(CP.get_global_param_string("fluids_list").split(","))
+
+
+def fluid_aliases(name: str) -> list[str]:
+    """CoolProp's aliases of a fluid (formula, refrigerant number, other spellings)."""
+    return [a.strip() for a in CP.get_fluid_param_string(name, "aliases").split(",") if a.strip()]
+
+
+def fluid_info(name: str, key: str) -> str:
+    """One of CoolProp's text facts about a fluid: "formula", "CAS", "ASHRAE34", "pure"."""
+    return str(CP.get_fluid_param_string(name, key))
+
+
+def library_version() -> str:
+    """The version of the reference library (CoolProp)."""
+    return str(CP.get_global_param_string("version"))
 
 
 class EOS:

@@ -8,44 +8,24 @@
 
 from __future__ import annotations
 
-import re
-from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any
 
-from scipy.optimize import brentq
-
-from . import processes
-from .atmosphere import ambient_pressure
+from . import states
+from .catalog import substance
+from .correlations.atmosphere import ambient_pressure
 from .errors import OutOfRangeError, PhasePathError, RouteError
-from .report import StatePoint
-from .substances import Substance, substance
+from .records import EVENT_DELTA, EVENTS, LEG_KINDS, Leg, StatePoint
+from .rootfind import find_root
+from .substances import Substance
 from .units import parse_pressure, parse_quantity, parse_temperature
 
-if TYPE_CHECKING:
+if TYPE_CHECKING:  # pragma: no cover
     from .report import Report
 
 __all__ = ["Route", "Leg", "LEG_KINDS"]
 
-#: Leg kinds and the property each one holds fixed.
-LEG_KINDS = {"isobar": "p", "isotherm": "T", "isochore": "v", "isenthalp": "h", "isentrope": "s"}
-
-#: Events that can end a constant-pressure or constant-temperature leg (plus "N K superheat"
-#: and "N K subcooling" on a constant-pressure leg).
-EVENTS = ("fully vapor", "fully liquid", "first liquid", "first vapor", "first solid")
-_DELTA = re.compile(r"^\s*([0-9]*\.?[0-9]+)\s*K\s+(superheat|subcooling)\s*$", re.IGNORECASE)
-
 _SAME = 1e-12  # relative: a leg shorter than this is a zero-length leg
 _ARRIVE = 1e-9  # fraction of the last leg, back from its end, at which its arrival side is read
-
-
-def _reraise(exc: PhasePathError, where: str, given: object) -> PhasePathError:
-    """The same error class with the user's own text in front of the message."""
-    msg = str(exc)
-    text = f"{where} {given!r}: {msg}" if repr(given) not in msg else f"{where}: {msg}"
-    new = type(exc).__new__(type(exc))
-    Exception.__init__(new, text)
-    new.__dict__.update(exc.__dict__)
-    return new
 
 
 def _parse(
@@ -62,32 +42,8 @@ def _parse(
             return parse_quantity(value, "density")
         return parse_temperature(value) if kind == "T" else parse_pressure(value)
     except PhasePathError as exc:
-        err = _reraise(exc, where, value if len(repr(value)) <= 80 else "…")
-        if sub is not None and kind in ("T", "p"):  # name the substance and its valid range
-            Exception.__init__(err, f"{err} ({_valid_range(sub, kind)})")
-        raise err from None
-
-
-def _valid_range(sub: Substance, kind: str) -> str:
-    if kind == "T":
-        return f"{sub.name}: valid T {sub.T_min:g} K to {sub.T_max:g} K"
-    return f"{sub.name}: valid p above 0 Pa, up to {sub.p_max:.6g} Pa"
-
-
-@dataclass(frozen=True)
-class Leg:
-    """One leg: its kind, its end state [K, Pa] and the target as the user wrote it.
-
-    ``state`` is the resolved end state where the leg fixes more than (T, p): a leg that ends on
-    a mixture (constant v, h or s) or on an event ("fully vapor"); ``event`` says which event.
-    """
-
-    kind: str
-    T: float
-    p: float
-    given: dict[str, Any] = field(default_factory=dict, compare=False)
-    state: StatePoint | None = field(default=None, compare=False, repr=False)
-    event: str = ""
+        valid = sub.valid_range(kind) if sub is not None and kind in ("T", "p") else None
+        raise exc.within(where, value=value, valid=valid) from exc
 
 
 class Route:
@@ -137,7 +93,7 @@ class Route:
                 raise OutOfRangeError(f"start density {density!r} is not positive")
             self._check(T0, self.substance.triple[1], "start state", given, T_only=True)
             state = self._guard(
-                lambda: processes.flash_Tv(self.substance, T0, 1.0 / rho), "start state", given
+                lambda: states.flash_Tv(self.substance, T0, 1.0 / rho), "start state", given
             )
             self.start = Leg("start", state.T, state.p, given, state=state)
         else:
@@ -179,13 +135,14 @@ class Route:
             raise RouteError(f"{where}: give the end temperature T or the end pressure p, not both")
         start = self.end_state()
         rho = self._need(start.rho, where, start)
-        pr = processes
         sub = self.substance
         if T is not None:
             T1 = _parse("T", T, f"{where} temperature", sub=self.substance)
             given: dict[str, Any] = {"T": T}
             self._check(T1, sub.triple[1], f"{where} end state", given, T_only=True)
-            end = self._guard(lambda: pr.flash_Tv(sub, T1, 1.0 / rho), f"{where} end state", given)
+            end = self._guard(
+                lambda: states.flash_Tv(sub, T1, 1.0 / rho), f"{where} end state", given
+            )
         else:
             p1 = _parse("p", p, f"{where} pressure", self.elevation, sub=self.substance)
             given = {"p": p}
@@ -222,9 +179,7 @@ class Route:
         given = {"p": p}
         self._check(start.T, p1, f"{where} end state", given, p_only=True)
         sub = self.substance
-        end = self._guard(
-            lambda: processes.flash_p(sub, p1, prop, value), f"{where} end state", given
-        )
+        end = self._guard(lambda: states.flash_p(sub, p1, prop, value), f"{where} end state", given)
         return self._add(Leg(kind, end.T, end.p, given, state=end))
 
     def _until(self, kind: str, until: str, target: object, where: str) -> Route:
@@ -237,7 +192,7 @@ class Route:
         state = None
         if phase is not None:
             state = self._guard(
-                lambda: processes.single_state(sub, T, p, phase), f"{where} end state", given
+                lambda: states.single_state(sub, T, p, phase), f"{where} end state", given
             )
         self._check(T, p, f"{where} end state", given)
         return self._add(Leg(kind, T, p, given, state=state, event=event))
@@ -254,7 +209,7 @@ class Route:
         try:
             state = make()
         except PhasePathError as exc:
-            raise _reraise(exc, where, _given_text(given)) from None
+            raise exc.within(f"{where} ({_given_text(given)})") from exc
         return state
 
     def end_state(self) -> StatePoint:
@@ -267,7 +222,7 @@ class Route:
             T0, p0 = self.corners()[-2]
             T, p = T + (T0 - T) * _ARRIVE, p + (p0 - p) * _ARRIVE
         phase, form = self.substance.classify(T, p)
-        return processes.single_state(self.substance, leg.T, leg.p, phase, form)
+        return states.single_state(self.substance, leg.T, leg.p, phase, form)
 
     def _add(self, leg: Leg) -> Route:
         end = self.end
@@ -299,7 +254,7 @@ class Route:
             else:
                 sub.check_state(T, p)
         except PhasePathError as exc:
-            raise _reraise(exc, where, _given_text(given)) from None
+            raise exc.within(f"{where} ({_given_text(given)})") from exc
 
     # -- reading -------------------------------------------------------------------------------
     @property
@@ -348,16 +303,14 @@ class Route:
         else:
             out = Route(self.substance, T=corners[-1][0], p=corners[-1][1], title=self.title)
         for leg, (T, p) in zip(reversed(self.legs), reversed(corners[:-1]), strict=False):
-            if leg.kind in ("isobar", "isochore"):
-                out.add(leg.kind, T=T)
-            else:
-                out.add(leg.kind, p=p)
+            coord = LEG_KINDS[leg.kind].moves
+            out.add(leg.kind, **{coord: T if coord == "T" else p})
         return out
 
     def to_dict(self) -> dict[str, Any]:
         """Plain data: the substance, the start and the legs as the user wrote them."""
         return {
-            "substance": self.substance if not _is_named(self.substance) else self.substance.name,
+            "substance": self.substance.name if self.substance.named else self.substance,
             "title": self.title,
             "notes": self.notes,
             "elevation": self.elevation,
@@ -387,20 +340,15 @@ class Route:
     @classmethod
     def load(cls, path: Any) -> Route:
         """Read a route file (JSON or YAML); see :mod:`phasepath.io`."""
-        from .io import load_route
+        from .routefile import load_route
 
         return load_route(path)
 
     def save(self, path: Any) -> Any:
         """Write this route to a route file (``.json``, ``.yaml``, ``.yml``); returns the path."""
-        from .io import save_route
+        from .routefile import save_route
 
         return save_route(self, path)
-
-
-def _is_named(sub: Substance) -> bool:
-    """True for substances that can be rebuilt from their name alone."""
-    return sub.eos is not None
 
 
 def _given_text(given: dict[str, Any]) -> str:
@@ -409,22 +357,24 @@ def _given_text(given: dict[str, Any]) -> str:
 
 def _isochore_to_p(sub: Substance, start: StatePoint, rho: float, p1: float) -> StatePoint:
     """The state on the isochore through ``start`` where the pressure is p1."""
-    pr = processes
 
     def gap(T: float) -> float:
         try:
-            return pr.flash_Tv(sub, T, 1.0 / rho).p - p1
+            return states.flash_Tv(sub, T, 1.0 / rho).p - p1
         except OutOfRangeError:
             return 1e300  # beyond the models: too high a pressure
 
     lo, hi = (start.T, sub.T_max) if p1 > start.p else (sub.T_min, start.T)
-    if gap(lo) * gap(hi) > 0:
-        raise OutOfRangeError(
-            f"p = {p1!r} Pa is not reached at constant density {rho:.6g} kg/m3 of {sub.name} "
-            f"between {lo:.6g} K and {hi:.6g} K"
-        )
-    T1 = float(brentq(gap, lo, hi, xtol=1e-10, rtol=1e-13))
-    return pr.flash_Tv(sub, T1, 1.0 / rho)
+    r = find_root(
+        gap,
+        lo,
+        hi,
+        what=(
+            f"p = {p1!r} Pa at constant density {rho:.6g} kg/m3 of {sub.name} "
+            f"(between {lo:.6g} K and {hi:.6g} K)"
+        ),
+    )
+    return states.flash_Tv(sub, r.root, 1.0 / rho)
 
 
 def _resolve_event(
@@ -432,7 +382,7 @@ def _resolve_event(
 ) -> tuple[float, float, str | None, str]:
     """(T, p, end phase or None, event text) of a leg that ends on an event."""
     text = until.strip().lower() if isinstance(until, str) else ""
-    m = _DELTA.match(text)
+    m = EVENT_DELTA.match(text)
     if text not in EVENTS and not m:
         raise RouteError(
             f"{where}: unknown event {until!r}; known: {', '.join(EVENTS)}, "
@@ -451,9 +401,9 @@ def _resolve_event(
             if p < p_t:
                 if sub.sublimation is None:
                     raise RouteError(f"{where}: {sub.name} has no published sublimation curve")
-                T1 = processes.temperature_on(sub.sublimation, p)
+                T1 = states.temperature_on(sub.sublimation, p)
             else:
-                melt = processes.melting_temperature(sub, p)
+                melt = sub.melting_temperature(p)
                 if melt is None:
                     raise RouteError(f"{where}: no melting curve of {sub.name} at p = {p:.6g} Pa")
                 T1 = melt[0]
@@ -475,7 +425,7 @@ def _resolve_event(
                 f"{where}: {until!r} needs a pressure between the triple point ({p_t:.6g} Pa) "
                 f"and the critical point ({p_c:.6g} Pa); the leg is at {p:.6g} Pa"
             )
-        T_s = vapor.temperatures_at(p)[0][0]
+        T_s = vapor.temperatures_at(p)[0].root
         if not m:
             _check_side(until, text, T, T_s, T < T_s, "T", "K", where)
         if m:

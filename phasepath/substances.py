@@ -1,4 +1,10 @@
-"""Substances: names and aliases, triple and critical points, validity limits, phase regions.
+"""The Substance: its boundary curves, special points, validity limits, phase regions and the
+models it carries (fluid, solid, latent heat).
+
+A substance is built once, by :mod:`phasepath.reference` (a CoolProp fluid) or by
+:mod:`phasepath.datasheet` (numbers from a data sheet), and found by name through
+:mod:`phasepath.catalog`. What it can compute is given by the model objects it carries; no code
+asks a substance its name to decide what to compute.
 
 >>> import phasepath as pp
 >>> water = pp.substance("water")
@@ -10,227 +16,38 @@
 
 from __future__ import annotations
 
-import difflib
+import json
 import math
 import numbers
-import re
-import threading
 from collections.abc import Mapping
-from functools import cache, cached_property, lru_cache
+from functools import cached_property
 from typing import Any
 
 from . import bibliography
 from .boundaries import Boundary
-from .eos import EOS, fluid_names
-from .errors import NonFiniteError, OutOfRangeError, PhasePathError, UnknownSubstanceError
-from .solids import sublimation_curve_for, water_boundaries
+from .errors import NonFiniteError, OutOfRangeError
+from .records import PHASES
 
-__all__ = ["Substance", "substance", "substances", "PHASES", "NO_SUBLIMATION"]
-
-#: The four regions a state can be in.
-PHASES = ("solid", "liquid", "vapor", "supercritical")
+__all__ = ["Substance", "PHASES", "NO_SUBLIMATION"]
 
 #: What the diagram and the analyser say below the triple point of a fluid with no published
 #: sublimation curve.
 NO_SUBLIMATION = "solid or vapor: no published sublimation curve"
 
-# Common names that CoolProp's alias lists do not already hold.
-_EXTRA_ALIASES = {
-    "water": "Water",
-    "steam": "Water",
-    "h2o": "Water",
-    "carbon dioxide": "CarbonDioxide",
-    "carbon monoxide": "CarbonMonoxide",
-    "nitrogen": "Nitrogen",
-    "argon": "Argon",
-    "methane": "Methane",
-    "oxygen": "Oxygen",
-    "hydrogen": "Hydrogen",
-    "helium": "Helium",
-    "neon": "Neon",
-    "krypton": "Krypton",
-    "xenon": "Xenon",
-    "ammonia": "Ammonia",
-    "propane": "n-Propane",
-    "butane": "n-Butane",
-    "ethane": "Ethane",
-    "ethylene": "Ethylene",
-    "ethanol": "Ethanol",
-    "methanol": "Methanol",
-    "nitrous oxide": "NitrousOxide",
-    "sulfur dioxide": "SulfurDioxide",
-    "hydrogen sulfide": "HydrogenSulfide",
-    "heavy water": "HeavyWater",
-    "air": "Air",
-}
-
-_TRIPLE_SHIFT_LIMIT = 0.05  # K: temperature offset above which a melting line is flagged unreliable
-
-
-def _key(text: str) -> str:
-    return re.sub(r"[\s\-_,()]+", "", text).lower()
-
-
-@lru_cache(maxsize=1)
-def _alias_map() -> dict[str, str]:
-    import CoolProp.CoolProp as CP
-
-    out: dict[str, str] = {}
-    for name in fluid_names():
-        out[_key(name)] = name
-        for alias in CP.get_fluid_param_string(name, "aliases").split(","):
-            if alias.strip():
-                out.setdefault(_key(alias), name)
-    for alias, name in _EXTRA_ALIASES.items():
-        if name in out.values():
-            out[_key(alias)] = name
-    return out
-
-
-def substances() -> list[str]:
-    """Every substance phasepath supports, by its CoolProp name.
-
-    >>> "CarbonDioxide" in substances() and len(substances()) > 100
-    True
-    """
-    return fluid_names()
-
-
-def substance(name: object) -> Substance:
-    """The :class:`Substance` for a name or alias (case-insensitive), or a Substance itself.
-
-    >>> substance("carbon dioxide").name
-    'CarbonDioxide'
-    >>> substance("Nitrogen") is substance("N2")
-    True
-    """
-    if isinstance(name, Substance):
-        return name
-    if isinstance(name, Mapping):  # a substance built from data, as saved in a route file
-        return Substance.from_dict(name)
-    if not isinstance(name, str) or not name.strip():
-        raise UnknownSubstanceError(name)
-    key = _key(name)
-    resolved = _alias_map().get(key)
-    if resolved is None:
-        from .custom import registered  # substances built from data in this session, by name
-
-        if name.strip() in registered():
-            return registered()[name.strip()]
-        keys = _alias_map()
-        close = difflib.get_close_matches(key, list(keys), n=4, cutoff=0.6)
-        names: list[str] = []
-        for c in close:
-            if keys[c] not in names:
-                names.append(keys[c])
-        raise UnknownSubstanceError(name, names[:3])
-    with _LOADING:  # first use from several threads at once: one Substance, one CoolProp load
-        return _coolprop_substance(resolved)
-
-
-_LOADING = threading.RLock()
-
-
-@cache
-def _coolprop_substance(name: str) -> Substance:
-    eos = EOS(name)
-    notes: list[str] = []
-    T_t, p_t, T_c, p_c = eos.T_triple, eos.p_triple, eos.T_crit, eos.p_crit
-    vapor = Boundary("vaporization", "vapor pressure", T_t, T_c, "CoolProp", eos.p_sat, eos.T_sat)
-    if name == "Water":
-        melting, water_sub = water_boundaries(p_t)
-        sublimation: Boundary | None = water_sub
-        notes.append(
-            "Melting and sublimation from IAPWS R14-08 (CoolProp's water melting line is not used)."
-        )
-    else:
-        melting = _coolprop_melting(eos, notes)
-        sublimation = sublimation_curve_for(name, T_t, p_t)
-        if not melting and not eos.has_melting_line:
-            notes.append(
-                "No published melting curve in the reference library: freezing under pressure "
-                "above the triple-point temperature is not detected."
-            )
-        if sublimation is None:
-            notes.append(f"Below the triple-point temperature: {NO_SUBLIMATION}.")
-    return Substance(
-        name=name,
-        triple=(T_t, p_t),
-        critical=(T_c, p_c),
-        T_max=eos.T_max,
-        p_max=eos.p_max,
-        vapor=vapor,
-        melting=tuple(melting),
-        sublimation=sublimation,
-        notes=tuple(notes),
-        eos=eos,
-    )
-
-
-def _coolprop_melting(eos: EOS, notes: list[str]) -> list[Boundary]:
-    """CoolProp's melting line as one branch that starts at the EOS triple point.
-
-    Junction rule: the line is shifted by the constant Δp = p_t - p_m(T_t) so that it passes
-    through the EOS triple point. Where that shift amounts to more than 0.05 K along the curve
-    (|Δp| / (dp_m/dT) at T_t) the branch is flagged unreliable.
-    """
-    if not eos.has_melting_line:
-        return []
-    T_lo, T_hi, _, _ = eos.melting_range()
-    T_t, p_t = eos.T_triple, eos.p_triple
-    T_lo = max(T_lo, T_t)
-    try:
-        shift = p_t - eos.p_melt(T_t)
-        slope = (eos.p_melt(T_t + 0.01) - eos.p_melt(T_t)) / 0.01
-    except PhasePathError:
-        notes.append(
-            f"CoolProp's melting line of {eos.name} cannot be evaluated at the triple point "
-            f"({T_t} K): it is not used, so freezing under pressure is not detected."
-        )
-        return []
-    offset_K = abs(shift) / slope if slope > 0 else math.inf
-    reliable = offset_K <= _TRIPLE_SHIFT_LIMIT
-    note = (
-        f"CoolProp's melting line misses the triple point by {-shift:.4g} Pa; shifted to meet it."
-    )
-    if not reliable:
-        notes.append(
-            f"The melting line of {eos.name} misses the triple point by {abs(shift):.3g} Pa "
-            f"(about {offset_K:.3g} K along the curve): treat melting results as unreliable."
-        )
-
-    def p_of_T(T: float) -> float:
-        return eos.p_melt(T) + shift
-
-    def T_of_p(p: float) -> float:
-        return eos.T_melt(p - shift)
-
-    return [
-        Boundary(
-            "melting",
-            "melting",
-            T_lo,
-            T_hi,
-            "CoolProp",
-            p_of_T,
-            T_of_p,
-            reliable=reliable,
-            note=note,
-        )
-    ]
-
 
 class Substance:
-    """A pure substance: its boundary curves, special points, limits and phase regions.
+    """A pure substance: its boundary curves, special points, limits, phase regions and models.
 
     Inside, every temperature is in kelvin and every pressure in pascal.
 
     Attributes
     ----------
     name : str
-        The reference library's name (``"CarbonDioxide"``).
+        The reference library's name (``"CarbonDioxide"``), or the name given to a substance
+        built from data.
     triple, critical : tuple of float
-        (T [K], p [Pa]) of the triple point and of the critical point.
+        (T [K], p [Pa]) of the triple point and of the critical point (NaN where a substance
+        built from data lacks one).
     T_min, T_max, p_max : float
         Validity limits of states [K, K, Pa].
     vapor : Boundary
@@ -239,47 +56,40 @@ class Substance:
         Melting branches (water: ice Ih, III, V, VI, VII).
     sublimation : Boundary or None
         The sublimation curve, or None where no published curve exists.
+    fluid : object
+        The fluid model: the reference equation of state (:class:`phasepath.eos.EOS`), or a
+        model that says why there is none (:class:`phasepath.models.NoFluidModel`).
+    solids : phasepath.models.SolidModel
+        What phasepath knows of the solid: its name, its forms, its published model if any.
+    latent : phasepath.models.LatentHeatModel
+        How latent heats are computed.
     notes : tuple of str
         Plain-language notes on what the models do not cover.
-    source_data : phasepath.custom.SubstanceData or None
-        For a substance built by :meth:`from_data`: its inputs, fits and missing pieces.
+    source_data : phasepath.datasheet.SubstanceData or None
+        For a substance built from data: its inputs, fits and missing pieces.
+    safety_group : str or None
+        Its safety group in ANSI/ASHRAE Standard 34 ("A1", "A3", "B2"...), where the reference
+        library gives one.
     """
-
-    source_data: Any = None
-
-    @classmethod
-    def from_data(cls, name: str, **data: Any) -> Substance:
-        """A substance built from data-sheet numbers: see :func:`phasepath.custom.from_data`."""
-        from .custom import from_data
-
-        return from_data(name, **data)
-
-    @classmethod
-    def from_dict(cls, data: Mapping[str, Any]) -> Substance:
-        """The substance a :meth:`to_dict` mapping describes."""
-        from .custom import from_dict
-
-        return from_dict(data)
-
-    def to_dict(self) -> dict[str, Any]:
-        """Plain data: ``{"name": ...}``, or the inputs of :meth:`from_data` for such one."""
-        from .custom import to_dict
-
-        return to_dict(self)
 
     def __init__(
         self,
         name: str,
+        *,
         triple: tuple[float, float],
         critical: tuple[float, float],
         T_max: float,
         p_max: float,
         vapor: Boundary | None,
+        fluid: Any,
+        solids: Any,
+        latent: Any,
         melting: tuple[Boundary, ...] = (),
         sublimation: Boundary | None = None,
         notes: tuple[str, ...] = (),
-        eos: EOS | None = None,
         T_min: float | None = None,
+        source_data: Any = None,
+        safety_group: str | None = None,
     ) -> None:
         self.name = name
         self.triple = (float(triple[0]), float(triple[1]))
@@ -290,7 +100,11 @@ class Substance:
         self.melting = tuple(melting)
         self.sublimation = sublimation
         self.notes = tuple(notes)
-        self.eos = eos
+        self.fluid = fluid
+        self.solids = solids
+        self.latent = latent
+        self.source_data = source_data
+        self.safety_group = safety_group
         if T_min is None:
             T_min = sublimation.T_min if sublimation is not None else self.triple[0]
         self.T_min = float(T_min)
@@ -301,6 +115,33 @@ class Substance:
     def __repr__(self) -> str:
         return f"<Substance {self.name}>"
 
+    # -- how the substance is written down ---------------------------------------------------
+    @classmethod
+    def from_data(cls, name: str, **data: Any) -> Substance:
+        """A substance built from data-sheet numbers: see :func:`phasepath.datasheet.from_data`."""
+        from .catalog import from_data  # facade: the catalog registers it by name
+
+        return from_data(name, **data)
+
+    @classmethod
+    def from_dict(cls, data: Mapping[str, Any]) -> Substance:
+        """The substance a :meth:`to_dict` mapping describes."""
+        from .catalog import from_dict  # facade
+
+        return from_dict(data)
+
+    def to_dict(self) -> dict[str, Any]:
+        """Plain data: ``{"name": ...}``, or the inputs of :meth:`from_data` for such a one."""
+        if self.source_data is None:
+            return {"name": self.name}
+        return json.loads(json.dumps(self.source_data.recipe))
+
+    @property
+    def named(self) -> bool:
+        """True where the name alone finds this substance again (a reference substance)."""
+        return self.source_data is None
+
+    # -- curves -------------------------------------------------------------------------------
     @cached_property
     def boundaries(self) -> tuple[Boundary, ...]:
         """Every boundary branch: vapor pressure, melting branches, sublimation."""
@@ -326,7 +167,33 @@ class Substance:
             ts.update((b.T_min, b.T_max))
         return tuple(sorted(ts))
 
+    def melting_temperature(self, p: float) -> tuple[float, str | None] | None:
+        """Highest melting temperature at pressure p [Pa] and the solid's form, or None."""
+        best: tuple[float, str | None] | None = None
+        for b in self.melting:
+            for r in b.temperatures_at(p):
+                if best is None or r.root > best[0]:
+                    best = (r.root, b.solid_form)
+        return best
+
+    def sources(self) -> list[str]:
+        """Full citations of the sources behind this substance's curves and models."""
+        ids: list[str] = []
+        for b in self.boundaries:
+            if b.source not in ids:
+                ids.append(b.source)
+        for source in getattr(self.solids, "sources", ()):
+            if source not in ids:
+                ids.append(source)
+        return [bibliography.cite(i) for i in ids]
+
     # -- validity ------------------------------------------------------------------------------
+    def valid_range(self, what: str = "T") -> str:
+        """The valid range of T or p, in words ("Water: valid T 50 K to 2000 K")."""
+        if what == "T":
+            return f"{self.name}: valid T {self.T_min:g} K to {self.T_max:g} K"
+        return f"{self.name}: valid p above 0 Pa, up to {self.p_max:.6g} Pa"
+
     def check_state(self, T: float, p: float) -> None:
         """Raise a phasepath error unless (T, p) lies where the models are valid."""
         for v, what in ((T, "T"), (p, "p")):
@@ -399,33 +266,27 @@ class Substance:
                     if p <= b.p_of_T(T):
                         return "solid", b.solid_form
                     solid = self._solid_above(T, p)
-                    return ("solid", solid[1]) if solid else ("liquid", None)
-            return "solid", self._deep_solid_form(T, p)
+                    return ("solid", solid) if solid is not False else ("liquid", None)
+            return "solid", self.solids.form_at(T, p)
         solid = self._solid_above(T, p)
-        if solid:
-            return "solid", solid[1]
+        if solid is not False:
+            return "solid", solid
+        return self.fluid_phase(T, p), None
+
+    def fluid_phase(self, T: float, p: float) -> str:
+        """The fluid region of (T, p), the solid left aside: "liquid", "vapor" or
+        "supercritical" (below the triple-point temperature: vapor below the triple-point
+        pressure, else liquid)."""
         T_c, p_c = self.critical
         if T > T_c:
-            return ("supercritical" if p > p_c else "vapor"), None
-        assert self.vapor is not None
-        return ("liquid" if p > self.vapor.p_of_T(T) else "vapor"), None
+            return "supercritical" if p > p_c else "vapor"
+        if not T < self.triple[0] and self.vapor is not None:  # (a triple point may be unknown)
+            return "liquid" if p > self.vapor.p_of_T(T) else "vapor"
+        return "liquid" if p > self.triple[1] else "vapor"
 
-    def _solid_above(self, T: float, p: float) -> tuple[bool, str | None] | None:
+    def _solid_above(self, T: float, p: float) -> str | None | bool:
+        """The form of the solid above a melting branch at (T, p) (None: unnamed), else False."""
         for b in self.melting:
             if b.solid_side == "above" and b.T_min <= T <= b.T_max and p > b.p_of_T(T):
-                return True, b.solid_form
-        return None
-
-    def _deep_solid_form(self, T: float, p: float) -> str | None:
-        """Name of the solid below every melting branch (water: ice Ih up to the Ih-III line)."""
-        if self.name == "Water" and p <= 208.566e6:
-            return "Ih"
-        return None
-
-    def sources(self) -> list[str]:
-        """Full citations of the sources behind this substance's curves."""
-        ids: list[str] = []
-        for b in self.boundaries:
-            if b.source not in ids:
-                ids.append(b.source)
-        return [bibliography.cite(i) for i in ids]
+                return b.solid_form
+        return False

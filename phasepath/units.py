@@ -28,6 +28,7 @@ __all__ = [
     "parse_pressure",
     "parse_quantity",
     "convert",
+    "affine",
     "TEMPERATURE_UNITS",
     "PRESSURE_UNITS",
     "ENERGY_UNITS",
@@ -205,12 +206,12 @@ def convert(x: float, from_unit: str, to_unit: str, dimension: str) -> float:
     >>> convert(300.0, "K", "degC", "temperature")
     26.850000000000023
     """
-    scale, offset = _affine(from_unit, to_unit, dimension)
+    scale, offset = affine(from_unit, to_unit, dimension)
     return float(x) * scale + offset
 
 
 @lru_cache(maxsize=256)
-def _affine(from_unit: str, to_unit: str, dimension: str) -> tuple[float, float]:
+def affine(from_unit: str, to_unit: str, dimension: str) -> tuple[float, float]:
     """(scale, offset) with to = scale * from + offset, from pint once per pair of units.
 
     Every unit phasepath converts between is linear or affine (degC, degF); a pint quantity per

@@ -18,7 +18,7 @@ from hypothesis import strategies as st
 
 import phasepath as pp
 from phasepath.errors import RouteFileError
-from phasepath.io import MAX_BYTES, dumps_route, load_route, loads_route
+from phasepath.routefile import MAX_BYTES, dumps_route, load_route, loads_route
 
 _GOOD = {
     "format": "phasepath route file",

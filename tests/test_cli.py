@@ -17,7 +17,7 @@ import sys
 
 import pytest
 
-from phasepath import cli
+from phasepath import cli, results
 
 ROUTE = """\
 format: phasepath route file
@@ -66,7 +66,7 @@ def test_analyze_json_matches_iapws(files) -> None:
     from scipy.optimize import brentq
 
     doc = json.loads(files[1].read_text(encoding="utf-8"))
-    assert doc["format"] == cli.RESULTS_FORMAT and doc["version"] == cli.RESULTS_VERSION
+    assert doc["format"] == results.FORMAT and doc["version"] == results.VERSION
     kinds = {c["kind"]: c for c in doc["crossings"]}
     assert kinds["vaporization"]["T"] == pytest.approx(
         iapws.IAPWS95(P=0.101325, x=0.0).T, abs=1e-3)
@@ -86,9 +86,9 @@ def test_analyze_csv(capsys, files) -> None:
     # converted with F = (K - 273.15) * 9/5 + 32, common practice); tolerance 0.002 degF
     iapws = pytest.importorskip("iapws")
     T_F = (iapws.IAPWS95(P=0.101325, x=0.0).T - 273.15) * 9.0 / 5.0 + 32.0
-    assert float(rows[1]["T [degF]"]) == pytest.approx(T_F, abs=0.002)
+    assert float(rows[1]["T [°F]"]) == pytest.approx(T_F, abs=0.002)
     code, out, _ = run(capsys, "analyze", str(files[0]), "--format", "csv", "--legs")
-    assert code == 0 and out.splitlines()[0].startswith("leg,kind,T start")
+    assert code == 0 and out.splitlines()[0].startswith("leg,kind,ends,T start")
 
 
 def test_check_passes_on_unchanged_plan(capsys, files) -> None:
@@ -153,13 +153,13 @@ def test_compare_crossings_pairs_in_order() -> None:
     a = {"step": 1, "kind": "melting", "from_phase": "solid", "to_phase": "liquid", "T": 1.0,
          "p": 1.0, "latent_heat": None, "boundary": "b"}
     b = {**a, "T": 2.0}
-    assert cli.compare_crossings([a, b], [a, b]) == []
-    diffs = cli.compare_crossings([a, b], [a])
+    assert results.compare_crossings([a, b], [a, b]) == []
+    diffs = results.compare_crossings([a, b], [a])
     assert [d["status"] for d in diffs] == ["disappeared"] and diffs[0]["expected"] == b
 
 
 @pytest.mark.parametrize("argv, message", [
-    (["analyze", "no-such-file.yaml"], "cannot read route file"),
+    (["analyze", "no-such-file.yaml"], "cannot read the file"),
     (["analyze", "{route}", "--units", "degC,furlongs"], "unknown display unit 'furlongs'"),
     (["check", "{route}", "{route}"], "not valid JSON"),
     (["diagram", "water", "-o", "plot.pdf"], ".svg or .png"),

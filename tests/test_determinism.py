@@ -1,7 +1,8 @@
 """Determinism and threads: the same route gives the same numbers, to the last bit, on every run,
 in every process and from every thread.
 
-CoolProp keeps one ``AbstractState`` per substance in phasepath (``phasepath.eos.EOS``), and an
+CoolProp keeps one ``AbstractState`` per substance in phasepath (``Substance.fluid``, an
+``phasepath.eos.EOS``), and an
 ``AbstractState`` is not safe to update from two threads at once; each ``EOS`` therefore holds an
 ``RLock`` around every update-and-read. Threaded use is preceded by a warm-up (each substance
 loaded and one route analysed, serially), so that CoolProp's fluid library and phasepath's
@@ -104,7 +105,7 @@ def test_shared_equation_of_state_under_threads() -> None:
     # Many threads update one substance's AbstractState at once: the per-substance lock keeps
     # each update-and-read together, so every answer equals the serial one exactly.
     sub = pp.substance("CO2")
-    eos = sub.eos
+    eos = sub.fluid
     assert eos is not None
     assert isinstance(eos._lock, type(threading.RLock()))
     Ts = [220.0 + 0.8 * i for i in range(100)]

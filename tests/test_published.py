@@ -69,7 +69,7 @@ def test_isobar_through_table8_point_boils_at_its_temperature(row):
 
 # -- IAPWS R14-08 through the Boundary objects of pp.substance("water") ----------------------------
 # The raw functions must reproduce the printed digits. The Boundary objects carry the documented
-# triple-point junction rule (phasepath.solids): the ice Ih melting curve is shifted by
+# triple-point junction rule (phasepath.reference): the ice Ih melting curve is shifted by
 # p_t(EOS) - 611.657 Pa (about -0.002 Pa, nothing at 100 MPa) and the sublimation curve scaled by
 # p_t(EOS) / 611.657 Pa (1 - 3.7e-6). So the Boundary check allows the printed digit plus 4e-6.
 JUNCTION_REL = 4e-6

@@ -82,7 +82,7 @@ MELT_GRID = (
 @pytest.mark.parametrize("label,ice,T", MELT_GRID, ids=[f"{i}-{t:.2f}K" for _, i, t in MELT_GRID])
 def test_melting_pressure_vs_iapws(label, ice, T):
     """R14-08 melting pressure (iapws._iapws._Melting_Pressure). Same equations: 1e-12 relative,
-    plus the documented ice Ih junction shift of about -0.002 Pa (phasepath.solids)."""
+    plus the documented ice Ih junction shift of about -0.002 Pa (phasepath.reference)."""
     ref = _Melting_Pressure(float(T), ice) * MPa
     assert _branch(label).p_of_T(float(T)) == pytest.approx(ref, rel=1e-12, abs=3e-3)
 
@@ -90,7 +90,8 @@ def test_melting_pressure_vs_iapws(label, ice, T):
 @pytest.mark.parametrize("T", np.linspace(50.0, 273.16, 15))
 def test_sublimation_pressure_vs_iapws(T):
     """R14-08 sublimation pressure (iapws._iapws._Sublimation_Pressure). The Boundary is scaled
-    by p_t(EOS)/611.657 Pa = 1 - 3.7e-6 to meet the EOS triple point (phasepath.solids), so 4e-6."""
+    by p_t(EOS)/611.657 Pa = 1 - 3.7e-6 to meet the EOS triple point (phasepath.reference), so
+    4e-6."""
     ref = _Sublimation_Pressure(float(T)) * MPa
     assert WATER.sublimation.p_of_T(float(T)) == pytest.approx(ref, rel=4e-6)
 

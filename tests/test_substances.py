@@ -95,7 +95,7 @@ def test_special_points_and_limits_are_consistent(name):
 
 @pytest.mark.parametrize("name", ["water", "CO2", "N2", "Ar", "CH4"])
 def test_melting_curve_starts_at_the_triple_point(name):
-    """Junction rule (documented in phasepath.substances / phasepath.solids): the lowest melting
+    """Junction rule (documented in phasepath.reference): the lowest melting
     branch passes through the EOS triple point."""
     sub = pp.substance(name)
     T_t, p_t = sub.triple

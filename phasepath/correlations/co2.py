@@ -24,9 +24,8 @@ from __future__ import annotations
 import math
 from functools import lru_cache
 
-from scipy.optimize import brentq
-
 from ..errors import NonFiniteError, OutOfRangeError
+from ..rootfind import find_root
 
 __all__ = [
     "SOURCE_CURVES",
@@ -244,15 +243,12 @@ def sublimation_temperature_co2(p: float) -> float:
     if p == P_TRIPLE:
         return T_TRIPLE
     lnp = math.log(p)
-    return float(
-        brentq(
-            lambda T: math.log(sublimation_pressure_co2(T)) - lnp,
-            SUBLIMATION_T_MIN,
-            T_TRIPLE,
-            xtol=1e-13,
-            rtol=1e-15,
-        )
-    )
+    return find_root(
+        lambda T: math.log(sublimation_pressure_co2(T)) - lnp,
+        SUBLIMATION_T_MIN,
+        T_TRIPLE,
+        what=f"the CO2 sublimation temperature at p = {p:g} Pa",
+    ).root
 
 
 def melting_pressure_co2(T: float) -> float:

@@ -9,18 +9,18 @@ per (substance, units) and kept here.
 from __future__ import annotations
 
 import math
-from functools import lru_cache
 from typing import Any
 
 import bqplot as bq
 import ipywidgets as W
 import numpy as np
 
-from ..report import UNIT_LABELS
+from .. import format as F
+from ..format import UNIT_LABELS
 from ..substances import NO_SUBLIMATION, Substance
-from ..units import convert
+from .coords import from_display, to_display
 
-__all__ = ["PhaseDiagram", "STYLE", "to_display", "from_display"]
+__all__ = ["PhaseDiagram", "STYLE"]
 
 #: Colours and marks of the diagram. The colours are drawn from a palette chosen to stay distinct
 #: for the common forms of colour-blindness; every curve also differs by its dash pattern, so the
@@ -53,30 +53,6 @@ _CSS = """
 .pp-diagram.pp-pan .plotarea_events { cursor: move; }
 </style>
 """
-
-
-def to_display(T: Any, p: Any, T_unit: str, p_unit: str) -> tuple[np.ndarray, np.ndarray]:
-    """SI arrays (K, Pa) -> display units (linear in T, scale factor in p)."""
-    T = np.asarray(T, dtype=float)
-    p = np.asarray(p, dtype=float)
-    a, b = _linear("temperature", "K", T_unit)
-    _, c = _linear("pressure", "Pa", p_unit)
-    return a + b * T, c * p
-
-
-def from_display(x: float, y: float, T_unit: str, p_unit: str) -> tuple[float, float]:
-    """Display units -> SI (K, Pa)."""
-    a, b = _linear("temperature", "K", T_unit)
-    _, c = _linear("pressure", "Pa", p_unit)
-    return (float(x) - a) / b, float(y) / c
-
-
-@lru_cache(maxsize=64)
-def _linear(dimension: str, si: str, unit: str) -> tuple[float, float]:
-    """(offset, factor) with display = offset + factor * SI (exact for these affine units)."""
-    a = convert(0.0, si, unit, dimension)
-    b = convert(1.0, si, unit, dimension) - a
-    return a, b
 
 
 class PhaseDiagram:
@@ -318,10 +294,10 @@ class PhaseDiagram:
             self.set_window(*window)
 
     def fmt_T(self, T: float) -> str:
-        return f"{convert(T, 'K', self.T_unit, 'temperature'):.2f} {UNIT_LABELS[self.T_unit]}"
+        return F.quantity(T, "temperature", self.T_unit)
 
     def fmt_p(self, p: float) -> str:
-        return f"{convert(p, 'Pa', self.p_unit, 'pressure'):.5g} {UNIT_LABELS[self.p_unit]}"
+        return F.quantity(p, "pressure", self.p_unit)
 
     # -- window --------------------------------------------------------------------------------
     def default_window(self, sub: Substance) -> tuple[float, float, float, float]:

@@ -2,11 +2,12 @@
 
 State lives in traitlets (``substance``, ``route``, ``report``, the display units, the leg kind
 in force, the event that ends the next drawn leg, the mode). The planner keeps the user's drawing
-as plain data (see ``_spec``), builds a :class:`phasepath.Route` from it through the core and
-analyses it with ``Route.analyze``; it never computes a crossing or a state itself. Each leg is
-drawn along the path the core reports for it (see ``_paths``). Every change ends in one batched
-update of the figure, the leg list and the tables (``hold_sync`` on each touched widget), so the
-page redraws once.
+as plain data (:mod:`.drawing`), translates the page's events into edits of it (:mod:`.events`),
+keeps the edits for undo (:mod:`.history`), builds a :class:`phasepath.Route` from it through the
+core and analyses it with ``Route.analyze``; it never computes a crossing, a state or a caution
+itself. Each leg is drawn along the path the core gives (:func:`phasepath.paths.route_line`).
+Every change ends in one batched update of the figure, the leg list and the tables
+(``hold_sync`` on each touched widget), so the page redraws once.
 
 >>> import phasepath as pp
 >>> route = pp.Route("CO2", T="-20 degC", p="30 bar").isobar(T="20 degC")
@@ -18,9 +19,7 @@ page redraws once.
 from __future__ import annotations
 
 import contextlib
-import io
-import json
-import math
+import html
 from collections.abc import Iterator
 from pathlib import Path
 from typing import Any
@@ -28,27 +27,27 @@ from typing import Any
 import ipywidgets as W
 import traitlets as tl
 
-from ..errors import PhasePathError, RouteError
+from ..catalog import registered
+from ..catalog import substance as _substance
+from ..catalog import substances as _substances
+from ..errors import PhasePathError
+from ..format import DisplayUnits
+from ..paths import route_line
+from ..records import EVENTS, LEG_KINDS
 from ..report import Report
-from ..route import EVENTS, Route
+from ..route import Route
 from ..substances import Substance
-from ..substances import substance as _substance
-from ..substances import substances as _substances
 from ..units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, parse_quantity
-from . import _paths, _spec
-from .controls import CSS, LegList, cautions_html, crossing_tip, legend_html, results_html
-from .diagram import PhaseDiagram, from_display
+from . import drawing, events, export
+from .diagram import PhaseDiagram
+from .history import History
+from .panels import CSS, LegList, cautions_html, crossing_tip, legend_html, results_html
 
 __all__ = ["RoutePlanner"]
 
-_KINDS = ("auto", *_spec.KINDS)
-_KIND_BUTTONS = [
-    ("auto", "auto", "pick constant T or constant p from the click's direction"),
-    ("constant T", "isotherm", "next leg holds the temperature (isotherm)"),
-    ("constant p", "isobar", "next leg holds the pressure (isobar)"),
-    ("constant v", "isochore", "sealed vessel: the click sets the end temperature"),
-    ("constant h", "isenthalp", "valve or vent: the click sets the end pressure"),
-    ("constant s", "isentrope", "ideal compressor or expander: the click sets the end pressure"),
+_KINDS = ("auto", *drawing.KINDS)
+_KIND_BUTTONS = [("auto", "auto", "pick constant T or constant p from the click's direction")] + [
+    (kind.label, name, f"next leg: {kind.device}") for name, kind in LEG_KINDS.items()
 ]
 #: Events offered for ending a drawn constant-p or constant-T leg ("" = at the click).
 _EVENT_CHOICES = (*EVENTS, "5 K superheat", "5 K subcooling")
@@ -79,8 +78,7 @@ class RoutePlanner(W.VBox):
         The analysis of ``route`` (None without legs).
     leg_kind : str
         The kind of the next leg drawn with the mouse: "auto" (constant T or constant p, from the
-        click's direction), "isotherm", "isobar", "isochore" (the click sets the end
-        temperature), "isenthalp" or "isentrope" (the click sets the end pressure).
+        click's direction), or a kind of :data:`phasepath.records.LEG_KINDS`.
     until : str
         An event that ends the next constant-p or constant-T leg instead of the click's
         coordinate ("fully vapor", "first solid", "5 K superheat", ...); "" for the click.
@@ -110,14 +108,11 @@ class RoutePlanner(W.VBox):
     ) -> None:
         if isinstance(substance, Route):
             route, substance = substance, substance.substance
-        if route is not None:
-            substance = route.substance
         sub = route.substance if route is not None else _substance(substance)
         super().__init__(layout=W.Layout(width="100%"))
         self.add_class("pp-planner")
         self._busy = True
-        self._undo: list[_spec.Spec] = []
-        self._redo: list[_spec.Spec] = []
+        self._history = History(_HISTORY)
         self._valid = True
         self._shown: list[tuple[float, float]] = []
         self._corners: list[tuple[float, float]] = []  # of the drawing in force (SI)
@@ -130,12 +125,15 @@ class RoutePlanner(W.VBox):
         self._build_controls()
         self._layout()
         self._busy = False
-        self._spec = _spec.from_route(route) if route is not None else _spec.empty(_key_of(sub))
+        self._spec = drawing.from_route(route) if route is not None else drawing.empty(_key_of(sub))
         self.diagram.set_substance(sub)
-        self.legend.value = legend_html(
-            _has_data_ranges(sub), tuple({b.kind for b in sub.boundaries})
-        )
+        self.legend.value = _legend(sub)
         self._apply(self._spec, fit=True)
+
+    @property
+    def units(self) -> DisplayUnits:
+        """The display units in force."""
+        return DisplayUnits(self.T_unit, self.p_unit, self.energy_unit)
 
     # -- construction --------------------------------------------------------------------------
     def _build_controls(self) -> None:
@@ -174,31 +172,33 @@ class RoutePlanner(W.VBox):
                 "drag to pan, scroll to zoom",
             ],
         )
+        button = W.Layout(width="80px")
         self.fit_btn = W.Button(
             description="fit",
             icon="expand",
             tooltip="show the whole route",
             layout=W.Layout(width="70px"),
         )
-        self.undo_btn = W.Button(description="undo", icon="undo", layout=W.Layout(width="80px"))
-        self.redo_btn = W.Button(description="redo", icon="repeat", layout=W.Layout(width="80px"))
-        self.clear_btn = W.Button(description="clear", icon="eraser", layout=W.Layout(width="80px"))
+        self.undo_btn = W.Button(description="undo", icon="undo", layout=button)
+        self.redo_btn = W.Button(description="redo", icon="repeat", layout=button)
+        self.clear_btn = W.Button(description="clear", icon="eraser", layout=button)
+        initial = {"description_width": "initial"}
         self.T_pick = W.Dropdown(
             options=[(_UNIT_TEXT[u], u) for u in TEMPERATURE_UNITS],
             description="temperature",
-            style={"description_width": "initial"},
+            style=initial,
             layout=W.Layout(width="170px"),
         )
         self.p_pick = W.Dropdown(
             options=list(PRESSURE_UNITS),
             description="pressure",
-            style={"description_width": "initial"},
+            style=initial,
             layout=W.Layout(width="160px"),
         )
         self.e_pick = W.Dropdown(
             options=list(ENERGY_UNITS),
             description="energy",
-            style={"description_width": "initial"},
+            style=initial,
             layout=W.Layout(width="160px"),
         )
         self.start_T = W.Text(placeholder="T, e.g. 25 degC", layout=W.Layout(width="120px"))
@@ -213,21 +213,24 @@ class RoutePlanner(W.VBox):
         self.files_btn = W.Button(
             description="files",
             icon="download",
+            layout=button,
             tooltip="prepare route.json, crossings.csv and legs.csv of the route shown",
-            layout=W.Layout(width="80px"),
         )
-        self.downloads = W.HTML(_NO_FILES)
-        self.png_btn = W.Button(description="PNG", icon="image", layout=W.Layout(width="80px"))
-        self.svg_btn = W.Button(description="SVG", icon="image", layout=W.Layout(width="80px"))
+        self.downloads = W.HTML(export.ON_REQUEST)
+        self.png_btn = W.Button(description="PNG", icon="image", layout=button)
+        self.svg_btn = W.Button(description="SVG", icon="image", layout=button)
         self.style_html = W.HTML(CSS, layout=W.Layout(height="0px", overflow="hidden"))
 
         self.picker.observe(self._picked, names="value")
-        tl.link((self, "leg_kind"), (self.kind_toggle, "value"))
-        tl.link((self, "until"), (self.until_pick, "value"))
-        tl.link((self, "mode"), (self.mode_toggle, "value"))
-        tl.link((self, "T_unit"), (self.T_pick, "value"))
-        tl.link((self, "p_unit"), (self.p_pick, "value"))
-        tl.link((self, "energy_unit"), (self.e_pick, "value"))
+        for trait, control in (
+            ("leg_kind", self.kind_toggle),
+            ("until", self.until_pick),
+            ("mode", self.mode_toggle),
+            ("T_unit", self.T_pick),
+            ("p_unit", self.p_pick),
+            ("energy_unit", self.e_pick),
+        ):
+            tl.link((self, trait), (control, "value"))
         self.fit_btn.on_click(lambda _b: self.fit())
         self.undo_btn.on_click(lambda _b: self.undo())
         self.redo_btn.on_click(lambda _b: self.redo())
@@ -277,7 +280,7 @@ class RoutePlanner(W.VBox):
         plot = W.VBox(
             [self.diagram.figure, self.legend, self.diagram.css], layout=W.Layout(flex="1 1 auto")
         )
-        export = W.HBox(
+        files = W.HBox(
             [
                 W.HTML("<b>Export</b>&nbsp;"),
                 self.files_btn,
@@ -295,38 +298,38 @@ class RoutePlanner(W.VBox):
             W.HBox([plot, side]),
             self.status,
             self.results,
-            export,
+            files,
             self.cautions,
         ]
 
     # -- public --------------------------------------------------------------------------------
     def undo(self) -> None:
         """Go back one edit."""
-        if self._undo:
-            self._redo.append(self._spec)
-            self._apply(self._undo.pop())
+        previous = self._history.undo(self._spec)
+        if previous is not None:
+            self._apply(previous)
 
     def redo(self) -> None:
         """Redo the last undone edit."""
-        if self._redo:
-            self._undo.append(self._spec)
-            self._apply(self._redo.pop())
+        later = self._history.redo(self._spec)
+        if later is not None:
+            self._apply(later)
 
     def clear(self) -> None:
         """Remove every corner (undoable)."""
-        self._commit(_spec.empty(self.substance), force=True)
+        self._commit(drawing.empty(self.substance), force=True)
 
     def fit(self) -> None:
         """Show the whole diagram and the whole route."""
-        self.diagram.set_window(*self.diagram.fit_window(self._corners_or_empty()))
+        self.diagram.set_window(*self.diagram.fit_window(list(self._corners)))
 
     def add_corner(self, T: object, p: object, kind: str | None = None) -> str:
         """Add the next corner at (T, p) as a click would (snapped to ``kind``, or to
         ``leg_kind``). Numbers are in the display units; strings may carry a unit. Returns the
         error message, or "" when the corner was added."""
         try:
-            Ts = self._typed_text(T, "temperature")
-            ps = self._typed_text(p, "pressure")
+            Ts = events.typed_text(T, "temperature", self.units)
+            ps = events.typed_text(p, "pressure", self.units)
         except PhasePathError as exc:
             return self._say(str(exc))
         return self._add(Ts, ps, kind)
@@ -341,7 +344,7 @@ class RoutePlanner(W.VBox):
     def prepare_files(self) -> None:
         """Build the download links (route.json, crossings.csv, legs.csv) of the route shown;
         they are built on request only, and withdrawn when the route changes."""
-        self.downloads.value = self._download_links()
+        self.downloads.value = export.download_links(self.route, self.report, self.units)
 
     def crossings_table(self) -> Any:
         """The crossings as a DataFrame in the display units (empty without a report)."""
@@ -361,17 +364,11 @@ class RoutePlanner(W.VBox):
 
     def save_route(self, path: str | Path) -> Path:
         """Save the current route as a route file (JSON or YAML by suffix)."""
-        if self.route is None:
-            raise PhasePathError(f"there is no valid route to save: {self.message}")
-        from ..io import save_route
-
-        return save_route(self.route, path)
+        return export.save_route_file(self.route, path, self.message)
 
     def save_table(self, path: str | Path) -> Path:
         """Save the crossings table as CSV in the display units."""
-        p = Path(path)
-        self.crossings_table().to_csv(p, index=False)
-        return p
+        return export.save_crossings_csv(self.report, path, self.units)
 
     def save_png(self, filename: str = "phase-route.png") -> None:
         """Download the diagram as PNG (done by the browser showing the planner)."""
@@ -387,9 +384,8 @@ class RoutePlanner(W.VBox):
         if self._busy or change["new"] is None:
             return
         route: Route = change["new"]
-        spec = _spec.from_route(route)
         self._use_substance(route.substance)
-        self._commit(spec, force=True, fit=True)
+        self._commit(drawing.from_route(route), force=True, fit=True)
 
     @tl.observe("substance")
     def _substance_set(self, change: dict[str, Any]) -> None:
@@ -424,9 +420,8 @@ class RoutePlanner(W.VBox):
         except PhasePathError as exc:
             self._say(str(exc))
             return
-        if sub is self._sub:
-            return
-        self._switch(sub)
+        if sub is not self._sub:
+            self._switch(sub)
 
     def _corners_changed(self, change: dict[str, Any]) -> None:
         """A click added a point to the corner Scatter, or a drag ended and moved one."""
@@ -434,28 +429,14 @@ class RoutePlanner(W.VBox):
             return
         c = self.diagram.corners
         x, y = list(c.x), list(c.y)
-        if len(x) != len(y):
-            return  # the other coordinate arrives in the same message
-        shown = self._shown
-        if len(x) == len(shown) + 1:
-            Ts, ps = self._point_text(x[-1], y[-1])
-            self._add(Ts, ps, None)
-        elif len(x) == len(shown):
-            moved = [
-                i
-                for i, (a, b) in enumerate(zip(zip(x, y, strict=True), shown, strict=True))
-                if not (
-                    math.isclose(a[0], b[0], rel_tol=1e-12, abs_tol=1e-12)
-                    and math.isclose(a[1], b[1], rel_tol=1e-12)
-                )
-            ]
-            if len(moved) == 1:
-                i = moved[0]
-                Ts, ps = self._point_text(x[i], y[i])
+        what, i = events.read_change(self._shown, x, y)
+        if what in ("add", "move") and i is not None:
+            Ts, ps = events.point_text(x[i], y[i], self.units)
+            if what == "add":
+                self._add(Ts, ps, None)
+            else:
                 self._move(i, Ts, ps)
-            elif moved:
-                self._redraw()
-        else:
+        elif what == "redraw":
             self._redraw()
 
     def _dragging(self, _mark: Any, event: dict[str, Any]) -> None:
@@ -463,51 +444,48 @@ class RoutePlanner(W.VBox):
         (no analysis; the true path is drawn when the drag ends)."""
         try:
             i = int(event["index"])
-            Ts, ps = self._point_text(event["point"]["x"], event["point"]["y"])
-            spec = _spec.move_corner(self._spec, i, Ts, ps)
-            self.diagram.preview_route(_spec.corners(spec))
+            Ts, ps = events.point_text(event["point"]["x"], event["point"]["y"], self.units)
+            spec = drawing.move_corner(self._spec, i, Ts, ps)
+            self.diagram.preview_route(drawing.corners(spec))
         except (KeyError, TypeError, ValueError, IndexError):
             return
 
     def _hover_corner(self, _mark: Any, event: dict[str, Any]) -> None:
-        i = _event_index(event)
+        i = events.event_index(event)
         pts = self._corners
         if i is None or i >= len(pts):
             return
         T, p = pts[i]
         phase = ""
         if self.report is not None:
-            st = (
-                self.report.legs[0].start
-                if i == 0
-                else self.report.legs[min(i, len(self.report.legs)) - 1].end
-            )
-            phase = f"<br>{_esc(_state_text(st))}"
+            legs = self.report.legs
+            st = legs[0].start if i == 0 else legs[min(i, len(legs)) - 1].end
+            phase = f"<br>{html.escape(_state_text(st))}"
         self.diagram.corners.tooltip.value = (
             f"<div class='pp-tip'><b>corner {'S' if i == 0 else i}</b><br>"
             f"{self.diagram.fmt_T(T)}<br>{self.diagram.fmt_p(p)}{phase}</div>"
         )
 
     def _hover_crossing(self, _mark: Any, event: dict[str, Any]) -> None:
-        i = _event_index(event)
+        i = events.event_index(event)
         if self.report is None or i is None or i >= len(self.report.crossings):
             return
         c = self.report.crossings[i]
-        detail = getattr(c, "detail", "")
         self.diagram.crossings.tooltip.value = (
             "<div class='pp-tip'>"
-            + _esc(crossing_tip(c, self.T_unit, self.p_unit, self.energy_unit))
-            + (f"<br>{_esc(detail)}" if detail else "")
-            + "".join(f"<br>⚠ {_esc(h.kind)}: {_esc(h.reason)}" for h in c.hazards)
+            + html.escape(crossing_tip(c, self.units))
+            + (f"<br>{html.escape(c.detail)}" if c.detail else "")
+            + "".join(f"<br>⚠ {html.escape(h.kind)}: {html.escape(h.reason)}" for h in c.hazards)
             + "</div>"
         )
 
     def _edit_corner(self, index: int, coord: str, typed: str) -> str:
-        if index == 0 and coord == "p" and _is_density(typed):
-            spec = _spec.copy_with_start(self._spec, density=typed.strip())
+        if index == 0 and coord == "p" and events.is_density(typed):
+            spec = drawing.copy_with_start(self._spec, density=typed.strip())
             return self._commit(spec, keep_fields=True)
         try:
-            value = self._typed_text(typed, "temperature" if coord == "T" else "pressure")
+            dimension = "temperature" if coord == "T" else "pressure"
+            value = events.typed_text(typed, dimension, self.units)
         except PhasePathError as exc:
             return self._say(str(exc), keep_fields=True)
         kw = {"T_text": value} if coord == "T" else {"p_text": value}
@@ -515,52 +493,36 @@ class RoutePlanner(W.VBox):
 
     def _delete_corner(self, index: int) -> str:
         try:
-            spec = _spec.delete_corner(self._spec, index)
+            spec = drawing.delete_corner(self._spec, index)
         except IndexError as exc:
-            return str(exc)
+            return self._say(str(exc), keep_fields=True)
         return self._commit(spec)
 
     def _typed_start(self) -> None:
         try:
-            Ts = self._typed_text(self.start_T.value, "temperature")
-            if _is_density(self.start_p.value):
+            Ts = events.typed_text(self.start_T.value, "temperature", self.units)
+            if events.is_density(self.start_p.value):
                 ps, density = None, self.start_p.value.strip()
             else:
-                ps, density = self._typed_text(self.start_p.value, "pressure"), None
+                ps = events.typed_text(self.start_p.value, "pressure", self.units)
+                density = None
         except PhasePathError as exc:
-            self.start_msg.value = f"<span class='pp-err'>⚠ {_esc(str(exc))}</span>"
+            self.start_msg.value = f"<span class='pp-err'>⚠ {html.escape(str(exc))}</span>"
             return
         if density is not None:
-            spec = _spec.copy_with_start(self._spec, T=Ts, density=density)
+            spec = drawing.copy_with_start(self._spec, T=Ts, density=density)
         elif self._spec["start"] is None:
-            spec = _spec.add_corner(self._spec, Ts, ps, "isobar")
+            spec = drawing.add_corner(self._spec, Ts, ps or "", "isobar")
         else:
-            spec = _spec.move_corner(self._spec, 0, Ts, ps)
+            spec = drawing.move_corner(self._spec, 0, Ts, ps)
         msg = self._commit(spec, fit=True)
-        self.start_msg.value = f"<span class='pp-err'>⚠ {_esc(msg)}</span>" if msg else ""
+        self.start_msg.value = f"<span class='pp-err'>⚠ {html.escape(msg)}</span>" if msg else ""
 
     def _typed_leg(self, kind: str, typed: str) -> str:
-        """A leg typed in the leg list: a target in the kind's coordinate (an isochore takes a
-        temperature or a pressure), or ``until <event>`` on a constant-p or constant-T leg."""
-        text = (typed or "").strip()
+        """A leg typed in the leg list (see :func:`phasepath.widgets.events.typed_target`)."""
         try:
-            if not text:
-                raise RouteError(f"type the {kind} leg's target ({_spec.MOVES[kind]}) or an event")
-            low = text.lower()
-            if low.startswith("until "):
-                target: dict[str, Any] = {"until": text[6:].strip()}
-            elif low in EVENTS or low.endswith(("superheat", "subcooling")):
-                target = {"until": text}
-            elif kind == "isochore":
-                try:
-                    target = {"T": self._typed_text(text, "temperature")}
-                except PhasePathError:
-                    target = {"p": self._typed_text(text, "pressure")}
-            else:
-                coord = _spec.MOVES[kind]
-                dim = "temperature" if coord == "T" else "pressure"
-                target = {coord: self._typed_text(text, dim)}
-            spec = _spec.add_leg(self._spec, kind, **target)
+            target = events.typed_target(kind, typed, self.units)
+            spec = drawing.add_leg(self._spec, kind, **target)
         except PhasePathError as exc:
             return self._say(str(exc), keep_fields=True)
         return self._commit(spec, fit=True)
@@ -569,10 +531,14 @@ class RoutePlanner(W.VBox):
     def _add(self, T_text: str, p_text: str, kind: str | None) -> str:
         kind = kind or self.leg_kind
         if kind == "auto":
-            kind = self._auto_kind(T_text, p_text)
-        until = self.until.strip() if kind in ("isobar", "isotherm") else ""
+            window = self.diagram.window() or self.diagram.fit_window(self._corners)
+            last = self._corners[-1] if self._corners else None
+            T1 = parse_quantity(T_text, "temperature")
+            p1 = parse_quantity(p_text, "pressure")
+            kind = events.auto_kind(last, T1, p1, window)
+        until = self.until.strip() if "until" in LEG_KINDS[kind].targets else ""
         try:
-            spec = _spec.add_corner(self._spec, T_text, p_text, kind, until or None)
+            spec = drawing.add_corner(self._spec, T_text, p_text, kind, until or None)
         except PhasePathError as exc:
             self._say(str(exc))
             self._redraw()
@@ -587,7 +553,7 @@ class RoutePlanner(W.VBox):
         keep_fields: bool = False,
     ) -> str:
         try:
-            spec = _spec.move_corner(self._spec, index, T_text, p_text)
+            spec = drawing.move_corner(self._spec, index, T_text, p_text)
         except (IndexError, PhasePathError) as exc:
             msg = self._say(str(exc), keep_fields=keep_fields)
             if not keep_fields:
@@ -595,21 +561,13 @@ class RoutePlanner(W.VBox):
             return msg
         return self._commit(spec, keep_fields=keep_fields)
 
-    def _auto_kind(self, T_text: str, p_text: str) -> str:
-        """The kind whose leg runs closer to the click's direction on screen."""
-        pts = self._corners
-        win = self.diagram.window() or self.diagram.fit_window(pts)
-        if not pts:
-            return "isobar"
-        T0, p0 = pts[-1]
-        T1 = parse_quantity(T_text, "temperature")
-        p1 = parse_quantity(p_text, "pressure")
-        dx = abs(T1 - T0) / max(win[1] - win[0], 1e-12)
-        dy = abs(math.log10(max(p1, 1e-300) / p0)) / max(math.log10(win[3] / win[2]), 1e-12)
-        return "isotherm" if dy > dx else "isobar"
-
     def _commit(
-        self, spec: _spec.Spec, *, force: bool = False, fit: bool = False, keep_fields: bool = False
+        self,
+        spec: drawing.Spec,
+        *,
+        force: bool = False,
+        fit: bool = False,
+        keep_fields: bool = False,
     ) -> str:
         """Take an edit if it gives a valid, analysable route (or ``force``); else keep the last
         good route. Returns the error message ("" when the edit was taken and is valid)."""
@@ -620,16 +578,13 @@ class RoutePlanner(W.VBox):
             if not keep_fields:
                 self._redraw()
             return err
-        self._undo.append(self._spec)
-        del self._undo[:-_HISTORY]
-        self._redo.clear()
+        self._history.push(self._spec)
         self._apply(spec, fit=fit, result=result)
         return err
 
     def _switch(self, sub: Substance) -> None:
         self._use_substance(sub)
-        spec = {**self._spec, "substance": _key_of(sub)}
-        self._commit(spec, force=True, fit=True)
+        self._commit({**self._spec, "substance": _key_of(sub)}, force=True, fit=True)
 
     def _use_substance(self, sub: Substance) -> None:
         """Make ``sub`` the planner's substance: the trait, the diagram's curves, the legend."""
@@ -639,9 +594,7 @@ class RoutePlanner(W.VBox):
         with self._quiet():
             self.substance = sub.name
         self.diagram.set_substance(sub)
-        self.legend.value = legend_html(
-            _has_data_ranges(sub), tuple({b.kind for b in sub.boundaries})
-        )
+        self.legend.value = _legend(sub)
 
     def _resolve(self, name: object) -> Substance:
         """The substance for a name (the planner's own one first: a substance built from data
@@ -655,7 +608,7 @@ class RoutePlanner(W.VBox):
     # -- state -> view -------------------------------------------------------------------------
     def _apply(
         self,
-        spec: _spec.Spec,
+        spec: drawing.Spec,
         fit: bool = False,
         result: tuple[Route | None, Report | None, str] | None = None,
     ) -> None:
@@ -669,10 +622,11 @@ class RoutePlanner(W.VBox):
         route, report, msg = result if result is not None else _evaluate(spec)
         self._valid = not msg
         try:
-            self._corners = _spec.corners(spec, route)
+            self._corners = drawing.corners(spec, route)
         except PhasePathError:
             self._corners = []
-        self._path = _paths.route_path(report) if report is not None and not msg else None
+        ok = report is not None and not msg
+        self._path = route_line(report.substance, report.legs, report.crossings) if ok else None
         with self._quiet():
             self.route = route if not msg else None
             self.set_trait("report", report if not msg else None)
@@ -687,19 +641,17 @@ class RoutePlanner(W.VBox):
                 self.fit()
             self._draw_route(pts)
             kinds = ["start"] + [leg["kind"] for leg in self._spec["legs"]]
-            events = [""] + [str(leg.get("until", "")) for leg in self._spec["legs"]]
+            ends = [""] + [str(leg.get("until", "")) for leg in self._spec["legs"]]
             if self.route is not None:  # the core's words for the event ("fully vapor at ...")
-                events = [""] + [leg.event or "" for leg in self.route.legs]
-            self.legs.show(pts, kinds[: len(pts)], self.T_unit, self.p_unit, events[: len(pts)])
+                ends = [""] + [leg.event or "" for leg in self.route.legs]
+            self.legs.show(pts, kinds[: len(pts)], self.T_unit, self.p_unit, ends[: len(pts)])
             self.start_box.layout.display = "none" if pts else None
-            self.results.value = results_html(
-                self.report, self.T_unit, self.p_unit, self.energy_unit
-            )
-            if self.downloads.value != _NO_FILES:
-                self.downloads.value = _NO_FILES  # links of an older route: withdrawn
-            self.cautions.value = cautions_html(self._sub, pts, self.report)
-            self.undo_btn.disabled = not self._undo
-            self.redo_btn.disabled = not self._redo
+            self.results.value = results_html(self.report, self.units)
+            if self.downloads.value != export.ON_REQUEST:
+                self.downloads.value = export.ON_REQUEST  # links of an older route: withdrawn
+            self.cautions.value = cautions_html(self.report)
+            self.undo_btn.disabled = not self._history.can_undo
+            self.redo_btn.disabled = not self._history.can_redo
             names = self._picker_names()
             if names != self._names:
                 self._names = names
@@ -722,13 +674,13 @@ class RoutePlanner(W.VBox):
     def _say(self, msg: str, keep_fields: bool = False) -> str:
         self.message = msg
         if msg:
-            self.status.value = f"<div class='pp-status pp-bad'>⚠ {_esc(msg)}</div>"
+            self.status.value = f"<div class='pp-status pp-bad'>⚠ {html.escape(msg)}</div>"
         elif self.report is not None:
             n = len(self.report.crossings)
-            nh = len({h.caution for h in _hazards(self.report)})
-            flags = f", {nh} hazard flag(s): see the tables and the cautions" if nh else ""
+            nh = len(self.report.cautions)
+            flags = f", {nh} caution(s): see the tables and the cautions" if nh else ""
             self.status.value = (
-                f"<div class='pp-status pp-ok'>{_esc(self._sub.name)}: "
+                f"<div class='pp-status pp-ok'>{html.escape(self._sub.name)}: "
                 f"{len(self.report.legs)} leg(s), {n} crossing(s){flags}.</div>"
             )
         else:
@@ -736,63 +688,12 @@ class RoutePlanner(W.VBox):
         return msg
 
     # -- helpers -------------------------------------------------------------------------------
-    def _corners_or_empty(self) -> list[tuple[float, float]]:
-        return list(self._corners)
-
     def _picker_names(self) -> tuple[str, ...]:
         """Substances built from data in this session first, then the reference substances."""
-        from ..custom import registered
-
         custom = [n for n in registered() if n]
-        if self._sub.name not in custom and self._sub.eos is None:
+        if self._sub.name not in custom and not self._sub.named:
             custom.append(self._sub.name)
         return tuple(custom + sorted(_substances(), key=str.lower))
-
-    def _point_text(self, x: float, y: float) -> tuple[str, str]:
-        T, p = from_display(x, y, self.T_unit, self.p_unit)
-        return _spec.text(T, "temperature", self.T_unit), _spec.text(p, "pressure", self.p_unit)
-
-    def _typed_text(self, value: object, dimension: str) -> str:
-        """What the user typed, checked, with the display unit added to a bare number."""
-        unit = self.T_unit if dimension == "temperature" else self.p_unit
-        parse_quantity(value, dimension, unit)
-        text = str(value).strip()
-        try:
-            float(text)
-        except ValueError:
-            return text
-        return f"{text} {unit}"
-
-    def _download_links(self) -> str:
-        """Data links of the route file and the two tables (built only when asked for)."""
-        import base64
-
-        links = []
-        if self.route is not None:
-            try:
-                from ..io import dumps_route
-
-                data = dumps_route(self.route, "json")
-            except (ImportError, PhasePathError):
-                data = json.dumps(self.route.to_dict(), indent=2, default=str)
-            links.append(("route.json", "application/json", data))
-        if self.report is not None:
-            buf = io.StringIO()
-            self.crossings_table().to_csv(buf, index=False)
-            links.append(("crossings.csv", "text/csv", buf.getvalue()))
-            buf = io.StringIO()
-            self.legs_table().to_csv(buf, index=False)
-            links.append(("legs.csv", "text/csv", buf.getvalue()))
-        if not links:
-            return "<span style='font-size:12px;color:#555'>nothing to export yet</span>"
-        parts = []
-        for name, mime, data in links:
-            b64 = base64.b64encode(data.encode("utf-8")).decode("ascii")
-            parts.append(
-                f"<a download='{name}' href='data:{mime};base64,{b64}' "
-                f"style='margin-right:12px'>⬇ {name}</a>"
-            )
-        return "".join(parts)
 
     @contextlib.contextmanager
     def _quiet(self) -> Iterator[None]:
@@ -820,33 +721,25 @@ class RoutePlanner(W.VBox):
             yield
 
 
-_NO_FILES = (
-    "<span style='font-size:12px;color:#555'>press “files” for route.json, crossings.csv "
-    "and legs.csv</span>"
-)
-
-
-def _evaluate(spec: _spec.Spec) -> tuple[Route | None, Report | None, str]:
+def _evaluate(spec: drawing.Spec) -> tuple[Route | None, Report | None, str]:
     """(route, report, error message) of a drawing; the core does all the work."""
     try:
-        route = _spec.build(spec)
+        route = drawing.build(spec)
         report = route.analyze() if route is not None and route.legs else None
         return route, report, ""
     except PhasePathError as exc:
         return None, None, str(exc)
-    except Exception as exc:  # a defect in phasepath: say so instead of a traceback
+    except Exception as exc:  # noqa: BLE001 - a defect in phasepath: say so, keep the drawing
         return (
             None,
             None,
-            (
-                f"phasepath could not analyse this route ({type(exc).__name__}: "
-                f"{exc}); the drawing is kept. Please report this route."
-            ),
+            f"phasepath could not analyse this route ({type(exc).__name__}: {exc}); the "
+            f"drawing is kept. Please report this route.",
         )
 
 
 def _key_of(sub: Substance) -> Any:
-    """How a spec names a substance: its name, or the substance itself where the name alone
+    """How a drawing names a substance: its name, or the substance itself where the name alone
     would not find it again (built from data under a reference substance's name)."""
     try:
         return sub.name if _substance(sub.name) is sub else sub
@@ -854,44 +747,15 @@ def _key_of(sub: Substance) -> Any:
         return sub
 
 
-def _has_data_ranges(sub: Substance) -> bool:
-    return any(getattr(b, "T_valid", None) is not None for b in sub.boundaries)
-
-
-def _hazards(report: Report) -> list[Any]:
-    return [h for leg in report.legs for h in leg.hazards] + [
-        h for c in report.crossings for h in c.hazards
-    ]
-
-
-def _is_density(text: object) -> bool:
-    """True for a typed density ("450 kg/m3"), which a start takes instead of a pressure."""
-    if not isinstance(text, str) or "/" not in text:
-        return False
-    try:
-        parse_quantity(text, "density")
-    except PhasePathError:
-        return False
-    return True
+def _legend(sub: Substance) -> str:
+    ranged = any(b.T_valid is not None for b in sub.boundaries)
+    return legend_html(ranged, tuple({b.kind for b in sub.boundaries}))
 
 
 def _state_text(st: Any) -> str:
-    text = st.phase + (f" (ice {st.form})" if st.form else "")
     parts = []
     if st.vapor_fraction is not None:
         parts.append(f"vapor {st.vapor_fraction:.1%}")
     if st.solid_fraction is not None:
         parts.append(f"solid {st.solid_fraction:.1%}")
-    return text + (f", {', '.join(parts)} by mass" if parts else "")
-
-
-def _event_index(event: dict[str, Any]) -> int | None:
-    data = event.get("data") or {}
-    i = data.get("index", event.get("index"))
-    return int(i) if i is not None else None
-
-
-def _esc(text: str) -> str:
-    import html
-
-    return html.escape(text)
+    return st.text + (f", {', '.join(parts)} by mass" if parts else "")

@@ -59,10 +59,13 @@ def _fit(points: list[tuple[float, float]]) -> tuple[float, float]:
     return my - b * mx, b
 
 
-def _rows(page) -> list[list[str]]:
+def _rows(page, selector: str = "table.pp-crossings tr.pp-crossing") -> list[dict[str, str]]:
+    """The rows of a results table, each cell keyed by its column (its ``pp-c-<key>`` class)."""
     return page.eval_on_selector_all(
-        "table.pp-crossings tr.pp-crossing",
-        "rows => rows.map(r => Array.from(r.querySelectorAll('td')).map(td => td.textContent))",
+        selector,
+        "rows => rows.map(r => Object.fromEntries(Array.from(r.querySelectorAll('td')).map("
+        "td => [Array.from(td.classList).find(c => c.startsWith('pp-c-')).slice(5), "
+        "td.textContent])))",
     )
 
 
@@ -116,8 +119,8 @@ def test_click_two_legs_shows_crossings(page, voila_url, artifacts):
     print(f"\nclick-to-table time (browser, Voila): {click_to_table * 1000:.0f} ms")
 
     rows = _rows(page)
-    assert [r[0] for r in rows] == ["1", "2"]
-    assert [r[1] for r in rows] == ["condensation", "vaporization"]
+    assert [r["leg"] for r in rows] == ["1", "2"]
+    assert [r["kind"] for r in rows] == ["condensation", "vaporization"]
 
     # one pixel of the axes, in data units (the allowed error of a click)
     T_px = abs(bx)
@@ -126,7 +129,7 @@ def test_click_two_legs_shows_crossings(page, voila_url, artifacts):
     logp_px = abs(by)
 
     # crossing 1: constant T at the clicked temperature, p on the vapor-pressure curve
-    T1, p1 = _number(rows[0][3]), _number(rows[0][4])
+    T1, p1 = _number(rows[0]["T"]), _number(rows[0]["p"])
     assert abs(T1 - T_click) <= T_px + 0.05
     p_sat = CP.PropsSI("P", "T", T1 + 273.15, "Q", 0, "CO2") / 1e5
     assert p1 == pytest.approx(p_sat, rel=1e-3)
@@ -135,12 +138,12 @@ def test_click_two_legs_shows_crossings(page, voila_url, artifacts):
     assert p1 == pytest.approx(14.278, abs=0.45 * (T_px + 0.1) + 0.02)
 
     # crossing 2: constant p at the clicked pressure, T on the vapor-pressure curve
-    T2, p2 = _number(rows[1][3]), _number(rows[1][4])
+    T2, p2 = _number(rows[1]["T"]), _number(rows[1]["p"])
     assert abs(math.log10(p2) - math.log10(p_click)) <= logp_px + 1e-3
     T_sat = CP.PropsSI("T", "P", p2 * 1e5, "Q", 0, "CO2") - 273.15
     assert T2 == pytest.approx(T_sat, abs=0.02)
     # latent heats are present and positive
-    assert all(_number(r[5]) > 0 for r in rows)
+    assert all(_number(r["latent"]) > 0 for r in rows)
     assert re.search(r"2 leg\(s\), 2 crossing\(s\)", page.inner_text(".pp-planner"))
 
 
@@ -182,16 +185,13 @@ def test_valve_letdown_draws_its_path_and_flags_dry_ice(page, voila_url, artifac
     page.screenshot(path=str(artifacts / "planner-co2-valve-letdown.png"), full_page=True)
 
     rows = _rows(page)
-    assert [r[1] for r in rows] == ["vaporization", "deposition"]
-    assert "bubble point" in rows[0][6]
-    assert "solid-formation" in rows[1][7]
+    assert [r["kind"] for r in rows] == ["vaporization", "deposition"]
+    assert "bubble point" in rows[0]["detail"]
+    assert "solid-formation" in rows[1]["hazards"]
     p_click = 10 ** (ay + by * (y1 + 0.5))
-    legs = page.eval_on_selector_all(
-        "table.pp-legsum tr.pp-leg",
-        "rows => rows.map(r => Array.from(r.querySelectorAll('td')).map(td => td.textContent))",
-    )
-    assert legs[0][3] == "liquid → solid+vapor"
-    assert 0.0 < _number(legs[0][4]) < 1.0 and 0.0 < _number(legs[0][5]) < 1.0
+    legs = _rows(page, "table.pp-legsum tr.pp-leg")
+    assert (legs[0]["phase0"], legs[0]["phase1"]) == ("liquid", "solid+vapor")
+    assert 0.0 < _number(legs[0]["xv"]) < 1.0 and 0.0 < _number(legs[0]["xs"]) < 1.0
     T_end = _number(page.eval_on_selector_all(".pp-legs input", "els => els[2].value"))
     dT = abs(p_click - 1.01325) * 1e5 / 5.5e3  # one pixel's pressure, in kelvin
     assert T_end == pytest.approx(-78.46, abs=dT + 0.05)

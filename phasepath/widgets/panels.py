@@ -1,4 +1,4 @@
-"""Controls of the planner: the leg list, the results tables and the cautions.
+"""Panels of the planner: the leg list, the results tables, the cautions and the legend.
 
 The leg list shows every corner of the route with its T and p in the display units; a value typed
 there goes to the planner, which validates it through the core. A rejected value stays in its field
@@ -9,13 +9,15 @@ from __future__ import annotations
 
 import html
 import math
-import re
 from collections.abc import Callable
 
 import ipywidgets as W
 
-from ..report import UNIT_LABELS, Report
-from ..substances import Substance
+from .. import format as F
+from .. import tables
+from ..format import UNIT_LABELS, DisplayUnits
+from ..records import LEG_KINDS, Crossing, LegSummary
+from ..report import Report
 from ..units import convert
 
 __all__ = ["LegList", "results_html", "cautions_html", "crossing_tip", "legend_html", "CSS"]
@@ -42,24 +44,16 @@ CSS = """
 </style>
 """
 
-_KIND_TEXT = {
-    "start": "start",
-    "isobar": "constant p",
-    "isotherm": "constant T",
-    "isochore": "constant v",
-    "isenthalp": "constant h",
-    "isentrope": "constant s",
-}
 
-
-#: What a typed target may be for each leg kind (placeholder of the add-a-leg field).
-_TARGET_HINT = {
-    "isobar": "T, or until fully vapor",
-    "isotherm": "p, or until first liquid",
-    "isochore": "end T or end p",
-    "isenthalp": "end p, e.g. 1 atm",
-    "isentrope": "end p, e.g. 80 bar",
-}
+def _hint(kind: str) -> str:
+    """What a typed target may be for a leg kind (placeholder of the add-a-leg field)."""
+    targets = LEG_KINDS[kind].targets
+    if "until" in targets:
+        coord = next(t for t in targets if t != "until")
+        return f"{coord}, or until an event"
+    if len(targets) > 1:
+        return " or ".join(f"end {t}" for t in targets)
+    return f"end {targets[0]}, e.g. {'1 atm' if targets[0] == 'p' else '20 degC'}"
 
 
 class LegList(W.VBox):
@@ -84,17 +78,17 @@ class LegList(W.VBox):
         self.header = W.HTML()
         self.hint = W.HTML("<span class='pp-err'></span>")
         self.add_kind = W.Dropdown(
-            options=[(_KIND_TEXT[k], k) for k in _TARGET_HINT],
+            options=[(kind.label, name) for name, kind in LEG_KINDS.items()],
             value="isobar",
             layout=W.Layout(width="120px"),
         )
-        self.add_target = W.Text(placeholder=_TARGET_HINT["isobar"], layout=W.Layout(width="188px"))
+        self.add_target = W.Text(placeholder=_hint("isobar"), layout=W.Layout(width="188px"))
         self.add_btn = W.Button(
             description="add", tooltip="add this leg at the end", layout=W.Layout(width="52px")
         )
         self.add_error = W.HTML()
         self.add_kind.observe(
-            lambda ch: setattr(self.add_target, "placeholder", _TARGET_HINT[ch["new"]]),
+            lambda ch: setattr(self.add_target, "placeholder", _hint(ch["new"])),
             names="value",
         )
         self.add_btn.on_click(lambda _b: self._added())
@@ -129,15 +123,16 @@ class LegList(W.VBox):
         try:
             for i, ((T, p), kind, event) in enumerate(zip(corners, kinds, events, strict=True)):
                 row = self._rows[i]
-                label = _KIND_TEXT.get(kind, kind)
+                label = LEG_KINDS[kind].label if kind in LEG_KINDS else kind
                 until = f"<br><span style='font-size:11px'>until {html.escape(event)}</span>"
                 row.label.value = f"<b>{'S' if i == 0 else i}</b> {label}" + (
                     until if event else ""
                 )
                 row.T.value = _num(convert(T, "K", T_unit, "temperature"), "T")
                 row.p.value = _num(convert(p, "Pa", p_unit, "pressure"), "p")
-                row.T.disabled = kind in ("isotherm", "isenthalp", "isentrope")
-                row.p.disabled = kind == "isobar"
+                targets = LEG_KINDS[kind].targets if kind in LEG_KINDS else ("T", "p")
+                row.T.disabled = "T" not in targets  # the leg holds T, or T follows from the EOS
+                row.p.disabled = "p" not in targets
                 row.error.value = ""
         finally:
             self._quiet = False
@@ -212,186 +207,85 @@ def _num(x: float, coord: str) -> str:
     return f"{x:.{digits}f}" if abs(x) < 1e7 else f"{x:.5g}"
 
 
-def crossing_tip(c: object, T_unit: str, p_unit: str, energy_unit: str) -> str:
+def crossing_tip(c: Crossing, units: DisplayUnits) -> str:
     """Plain-text conditions of a crossing (table row tooltips and diagram marks)."""
-    T = convert(c.T, "K", T_unit, "temperature")  # type: ignore[attr-defined]
-    p = convert(c.p, "Pa", p_unit, "pressure")  # type: ignore[attr-defined]
-    L = c.latent_heat  # type: ignore[attr-defined]
-    Ltext = (
+    L = (
         "no latent heat"
-        if L is None
-        else f"latent heat {convert(L, 'J/kg', energy_unit, 'energy'):.4g} "
-        f"{UNIT_LABELS[energy_unit]}"
+        if c.latent_heat is None
+        else f"latent heat {F.quantity(c.latent_heat, 'energy', units.energy)}"
     )
     return (
-        f"leg {c.step}: {c.kind} ({c.from_phase} → {c.to_phase}) at "  # type: ignore[attr-defined]
-        f"T = {T:.2f} {UNIT_LABELS[T_unit]}, p = {p:.5g} {UNIT_LABELS[p_unit]}; {Ltext}"
+        f"leg {c.step}: {c.kind} ({c.from_text} → {c.to_text}) at "
+        f"T = {F.quantity(c.T, 'temperature', units.T)}, "
+        f"p = {F.quantity(c.p, 'pressure', units.p)}; {L}"
     )
 
 
-def results_html(report: Report | None, T_unit: str, p_unit: str, energy_unit: str) -> str:
-    """The crossings table (with what happens there and its hazard flags) and the per-leg
-    table (heat, work, the end state's vapor and solid fractions, the event a leg ends on and
-    its hazard flags), as HTML."""
+def _leg_tip(leg: LegSummary, units: DisplayUnits) -> str:
+    T0, T1 = F.temperature(leg.start.T, units.T), F.temperature(leg.end.T, units.T)
+    p0, p1 = F.pressure(leg.start.p, units.p), F.pressure(leg.end.p, units.p)
+    Tl, pl, _ = units.labels
+    return f"leg {leg.step} ({leg.kind}): {T0} → {T1} {Tl}, {p0} → {p1} {pl}"
+
+
+def results_html(report: Report | None, units: DisplayUnits) -> str:
+    """The crossings table and the per-leg table (heat, work, fractions, the event a leg ends
+    on, hazard flags), as HTML, from the one table definition of :mod:`phasepath.tables`."""
     if report is None:
         return (
             "<div class='pp-h'>Crossings</div><div style='font-size:13px;color:#555'>"
             "Draw at least one leg to see where the route changes phase.</div>"
         )
-    tl, pl, el = UNIT_LABELS[T_unit], UNIT_LABELS[p_unit], UNIT_LABELS[energy_unit]
-    T_of = _affine_of(T_unit, "K", "temperature")
-    p_of = _affine_of(p_unit, "Pa", "pressure")
-    e_of = _affine_of(energy_unit, "J/kg", "energy")
     out = ["<div class='pp-h'>Crossings</div>"]
     if report.crossings:
+        index = {id(c): k for k, c in enumerate(report.crossings)}
+
+        def crossing_data(c: Crossing) -> dict[str, str]:
+            return {"index": str(index[id(c)]), "leg": str(c.step), "kind": c.kind}
+
+        def crossing_title(c: Crossing) -> str:
+            tip = crossing_tip(c, units)
+            return tip + (f" ({c.latent_heat_note})" if c.latent_heat_note else "")
+
         out.append(
-            "<table class='pp-table pp-crossings'><tr><th>leg</th><th>transition</th>"
-            f"<th>from → to</th><th>T [{tl}]</th><th>p [{pl}]</th>"
-            f"<th>latent heat [{el}]</th><th>what happens</th><th>hazards</th></tr>"
+            tables.html_table(
+                tables.CROSSINGS,
+                report.crossings,
+                units,
+                table_class="pp-crossings",
+                row_class="pp-crossing",
+                row_title=crossing_title,
+                row_data=crossing_data,
+            )
         )
-        for k, c in enumerate(report.crossings):
-            T, p = T_of(c.T), p_of(c.p)
-            L = "—" if c.latent_heat is None else f"{e_of(c.latent_heat):.4g}"
-            tip = html.escape(
-                crossing_tip(c, T_unit, p_unit, energy_unit)
-                + (f" ({c.latent_heat_note})" if c.latent_heat_note else ""),
-                quote=True,
-            )
-            frm = c.from_phase + (f" ({c.from_form})" if c.from_form else "")
-            to = c.to_phase + (f" ({c.to_form})" if c.to_form else "")
-            detail = getattr(c, "detail", "") or ""
-            out.append(
-                f"<tr class='pp-crossing' data-index='{k}' data-leg='{c.step}' "
-                f"data-kind='{html.escape(c.kind)}' data-t='{T:.6g}' data-p='{p:.6g}' "
-                f"title='{tip}'><td class='num'>{c.step}</td><td>{html.escape(c.kind)}</td>"
-                f"<td>{html.escape(frm)} → {html.escape(to)}</td><td class='num'>{T:.2f}</td>"
-                f"<td class='num'>{p:.5g}</td><td class='num'>{L}</td>"
-                f"<td class='pp-detail'>{html.escape(detail)}</td>{_hazard_cell(c)}</tr>"
-            )
-        out.append("</table>")
     else:
         out.append("<div style='font-size:13px;color:#555'>No phase boundary is crossed.</div>")
+    out.append("<div class='pp-h'>Heat and work per leg</div>")
     out.append(
-        "<div class='pp-h'>Heat and work per leg</div>"
-        "<table class='pp-table pp-legsum'><tr><th>leg</th><th>kind</th><th>ends</th>"
-        "<th>start → end phase</th><th>vapor fraction at end</th><th>solid fraction at end</th>"
-        f"<th>heat in [{el}]</th><th>work in [{el}]</th><th>hazards</th><th>basis</th></tr>"
+        tables.html_table(
+            tables.LEGS,
+            report.legs,
+            units,
+            table_class="pp-legsum",
+            row_class="pp-leg",
+            row_title=lambda leg: _leg_tip(leg, units),
+            row_data=lambda leg: {"leg": str(leg.step)},
+        )
     )
-
-    def e(v: float | None) -> str:
-        return "—" if v is None else f"{e_of(v):.4g}"
-
-    for leg in report.legs:
-        tip = html.escape(
-            f"leg {leg.step} ({leg.kind}): {T_of(leg.start.T):.2f} → {T_of(leg.end.T):.2f} {tl}, "
-            f"{p_of(leg.start.p):.5g} → {p_of(leg.end.p):.5g} {pl}",
-            quote=True,
-        )
-        event = getattr(leg, "event", "") or ""
-        out.append(
-            f"<tr class='pp-leg' data-leg='{leg.step}' title='{tip}'><td class='num'>{leg.step}"
-            f"</td><td>{_KIND_TEXT.get(leg.kind, leg.kind)}</td>"
-            f"<td class='pp-event'>{html.escape(event) if event else 'at target'}</td>"
-            f"<td>{html.escape(_phase(leg.start))} → {html.escape(_phase(leg.end))}</td>"
-            f"<td class='num pp-xv'>{_fraction(leg.end.vapor_fraction)}</td>"
-            f"<td class='num pp-xs'>{_fraction(leg.end.solid_fraction)}</td>"
-            f"<td class='num'>{e(leg.heat)}</td>"
-            f"<td class='num'>{e(leg.work)}</td>{_hazard_cell(leg)}"
-            f"<td style='font-size:11px;color:#555'>"
-            f"{html.escape(leg.note)}</td></tr>"
-        )
     out.append(
-        "</table><div style='font-size:11px;color:#555'>Reversible steady flow per kg: "
+        "<div style='font-size:11px;color:#555'>Reversible steady flow per kg: "
         "heat = ∫T ds, work = ∫v dp, heat + work = Δh. Fractions are by mass (lever rule); "
         "— for a single phase.</div>"
     )
     return "".join(out)
 
 
-def _affine_of(unit: str, si: str, dimension: str) -> Callable[[float], float]:
-    """SI -> display unit as a plain affine function (one unit conversion per table)."""
-    a = convert(0.0, si, unit, dimension)
-    b = convert(1.0, si, unit, dimension) - a
-    return lambda x: a + b * x
-
-
-def _phase(state: object) -> str:
-    phase = state.phase  # type: ignore[attr-defined]
-    form = state.form  # type: ignore[attr-defined]
-    return f"{phase} (ice {form})" if form else phase
-
-
-def _fraction(x: float | None) -> str:
-    return "—" if x is None else f"{x:.3f}"
-
-
-def _hazard_cell(item: object) -> str:
-    """The hazard flags of a leg or a crossing: their kinds, the reasons in the tooltip."""
-    hazards = list(getattr(item, "hazards", ()) or ())
-    if not hazards:
-        return "<td class='pp-hazards'></td>"
-    tip = html.escape(" ".join(f"{h.kind}: {h.reason}." for h in hazards), quote=True)
-    kinds = html.escape(", ".join(dict.fromkeys(h.kind for h in hazards)))
-    return (
-        f"<td class='pp-hazards' title='{tip}' style='color:#9a3412;font-weight:600'>⚠ {kinds}</td>"
-    )
-
-
-def cautions_html(
-    sub: Substance, corners: list[tuple[float, float]], report: Report | None = None
-) -> str:
-    """Plain cautions: the core's hazard flags on the route, then the substance and the
-    conditions the route reaches."""
-    items: list[str] = []
-    if report is not None:
-        seen: set[str] = set()
-        for h in [h for leg in report.legs for h in getattr(leg, "hazards", ())] + [
-            h for c in report.crossings for h in getattr(c, "hazards", ())
-        ]:
-            # deduplicated by sentence: the flags share their closing sentence
-            for sentence in re.split(r"(?<=\.)\s+", h.caution or ""):
-                if sentence and sentence not in seen:
-                    seen.add(sentence)
-                    items.append(sentence)
-    p_max = max((p for _, p in corners), default=0.0)
-    T_min = min((T for T, _ in corners), default=math.inf)
-    T_max = max((T for T, _ in corners), default=-math.inf)
-    if p_max > 1.5e5:
-        items.append(
-            f"The route reaches {p_max / 1e5:.4g} bar: pressure equipment must be rated "
-            "and relieved for it."
-        )
-    if T_min < 200.0:
-        items.append(
-            "Cryogenic temperatures: cold burns, embrittlement of ordinary steels, and "
-            "pressure build-up as trapped liquid warms."
-        )
-    if T_max > 330.0:
-        items.append("Hot surfaces, hot liquid and steam: scald and burn risk.")
-    name = sub.name
-    if name in ("CarbonDioxide", "Nitrogen", "Argon", "Helium", "Neon"):
-        items.append(
-            f"{name} displaces air: asphyxiation risk in closed rooms; ventilate and "
-            "monitor oxygen."
-        )
-    if name == "CarbonDioxide":
-        items.append(
-            "Solid CO2 (dry ice) causes cold burns and sublimes to gas: never seal it in "
-            "a closed vessel."
-        )
-    if name in ("Methane", "Hydrogen", "Ethane", "n-Propane", "n-Butane", "Ethylene"):
-        items.append(
-            f"{name} is flammable: keep ignition sources away and follow hazardous-area rules."
-        )
-    items.append(
-        "Results are model values for planning, not a safety assessment. Follow local "
-        "codes, the equipment's ratings and licensed practice before any run."
-    )
-    return (
-        "<div class='pp-caution'><b>Cautions.</b> "
-        + " ".join(html.escape(i) for i in items)
-        + "</div>"
-    )
+def cautions_html(report: Report | None) -> str:
+    """The route's cautions, exactly as the core gives them (``Report.cautions``)."""
+    if report is None or not report.cautions:
+        return ""
+    items = "".join(f"<li>{html.escape(c)}</li>" for c in report.cautions)
+    return f"<div class='pp-caution'><b>Cautions</b><ul>{items}</ul></div>"
 
 
 def legend_html(extrapolated: bool = False, kinds: tuple[str, ...] | None = None) -> str:

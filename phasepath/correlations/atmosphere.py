@@ -8,7 +8,7 @@ from __future__ import annotations
 
 import math
 
-from .errors import NonFiniteError, OutOfRangeError
+from ..errors import NonFiniteError, OutOfRangeError
 
 __all__ = ["ambient_pressure", "SOURCE", "ELEVATION_RANGE"]
 

@@ -10,8 +10,7 @@ Two forms, both fitted by least squares in ln p (every point carries the same re
 
 Each fit is a :class:`VaporFit`: the parameters, one standard uncertainty of each (where the
 points leave degrees of freedom to estimate it), the points and their residuals.
-:mod:`phasepath.custom` builds a substance's vapor-pressure curve from these fits and re-exports
-the names below.
+:mod:`phasepath.datasheet` builds a substance's vapor-pressure curve from these fits.
 """
 
 from __future__ import annotations
@@ -23,60 +22,15 @@ from typing import TYPE_CHECKING
 
 import numpy as np
 
-from .correlations import vapor_pressure as vp
-from .errors import OutOfRangeError, PhasePathError
-from .units import parse_pressure, parse_temperature
+from .. import format as F
+from ..correlations import vapor_pressure as vp
+from ..errors import PhasePathError
+from .inputs import points as _points
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
-__all__ = [
-    "VaporFit",
-    "fit_clausius_clapeyron",
-    "fit_antoine",
-]
-
-
-# -- points given at the edge --------------------------------------------------------------------
-def _T(value: object, what: str) -> float:
-    try:
-        T = parse_temperature(value)
-    except PhasePathError as exc:
-        raise type(exc)(f"{what}: {exc}") from None
-    if T <= 0.0:
-        raise OutOfRangeError(f"{what} = {value!r} is not above absolute zero")
-    return T
-
-
-def _p(value: object, what: str) -> float:
-    try:
-        p = parse_pressure(value)
-    except PhasePathError as exc:
-        raise type(exc)(f"{what}: {exc}") from None
-    if p <= 0.0:
-        raise OutOfRangeError(f"{what} = {value!r} is not a positive pressure")
-    return p
-
-
-def _points(
-    points: Sequence[Sequence[object]], what: str = "vapor_points"
-) -> tuple[tuple[float, float], ...]:
-    out = []
-    try:
-        items = list(points)
-    except TypeError:
-        raise PhasePathError(f"{what} = {points!r} is not a list of (T, p) pairs") from None
-    for i, item in enumerate(items):
-        try:
-            T, p = item  # type: ignore[misc]
-        except (TypeError, ValueError):
-            raise PhasePathError(f"{what}[{i}] = {item!r} is not a (T, p) pair") from None
-        out.append((_T(T, f"{what}[{i}] temperature"), _p(p, f"{what}[{i}] pressure")))
-    out.sort()
-    for (t0, _), (t1, _) in zip(out[:-1], out[1:], strict=True):
-        if t1 - t0 <= 1e-9 * t1:
-            raise PhasePathError(f"{what}: two points share the temperature {t0:g} K")
-    return tuple(out)
+__all__ = ["VaporFit", "fit_clausius_clapeyron", "fit_antoine", "signed"]
 
 
 # -- fits -----------------------------------------------------------------------------------------
@@ -173,21 +127,30 @@ class VaporFit:
         )
         if self.form == "antoine":
             q, s = self.params, self.stderr
+            A, B = F.fitted(q["A"], s["A"]), F.fitted(q["B"], s["B"])
+            C = F.fitted(abs(q["C"]), s["C"])
+            errors = (
+                f"A ± {F.significant(s['A'], 2)}, B ± {F.significant(s['B'], 2)} K, "
+                f"C ± {F.significant(s['C'], 2)} K, correlated: the fit holds them in full"
+                if math.isfinite(s["C"])
+                else "no uncertainty estimated"
+            )
             return (
                 f"Antoine fitted to {n} vapor points ({lo:g} K to {hi:g} K): "
-                f"log10(p/Pa) = {q['A']:.6g} - {q['B']:.6g}/(T/K {_signed(q['C'])}) "
-                f"(C ± {s['C']:.2g} K); {spread}."
+                f"log10(p/Pa) = {A} - {B}/(T/K {'+' if q['C'] >= 0 else '-'} {C}) "
+                f"({errors}); {spread}."
             )
         dh, sd = self.params["dH"], self.enthalpy_stderr
-        unc = f" ± {sd / 1e3:.2g}" if math.isfinite(sd) else ""
+        unc = f" ± {F.significant(sd / 1e3, 2)}" if math.isfinite(sd) else ""
         return (
             f"Two-parameter Clausius-Clapeyron fit of {n} vapor points ({lo:g} K to {hi:g} K): "
-            f"enthalpy of vaporization {dh / 1e3:.4g}{unc} kJ/mol (1 standard uncertainty); "
-            f"{spread}."
+            f"enthalpy of vaporization {F.fitted(dh / 1e3, sd / 1e3)}{unc} kJ/mol "
+            f"(1 standard uncertainty); {spread}."
         )
 
 
-def _signed(x: float) -> str:
+def signed(x: float) -> str:
+    """x written with its sign apart: "+ 12.5", "- 3"."""
     return f"{'+' if x >= 0 else '-'} {abs(x):.5g}"
 
 

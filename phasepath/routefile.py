@@ -39,8 +39,11 @@ from functools import lru_cache
 from pathlib import Path
 from typing import Any
 
-from .errors import PhasePathError, RouteFileError
-from .route import LEG_KINDS, Route
+from . import fileio
+from .errors import PhasePathError, RouteFileError, UnknownSubstanceError
+from .records import LEG_KINDS
+from .route import Route
+from .substances import Substance
 from .units import parse_quantity
 
 __all__ = [
@@ -59,21 +62,13 @@ FORMAT = "phasepath route file"
 #: The version of the format this phasepath writes and reads.
 VERSION = 1
 #: Larger files are refused before they are parsed (1 MiB).
-MAX_BYTES = 1 << 20
+MAX_BYTES = fileio.MAX_BYTES
 
 _TOP = ("format", "version", "substance", "title", "notes", "elevation", "start", "legs")
 _REQUIRED_TOP = ("format", "version", "substance", "start", "legs")
 _SCHEMA_PATH = Path(__file__).parent / "data" / "route.schema.json"
 _SUFFIX = {".json": "json", ".yaml": "yaml", ".yml": "yaml"}
 
-#: For each leg kind, the fields that may give its end (exactly one of them per leg).
-_LEG_TARGETS = {
-    "isobar": ("T", "until"),
-    "isotherm": ("p", "until"),
-    "isochore": ("T", "p"),
-    "isenthalp": ("p",),
-    "isentrope": ("p",),
-}
 _EXAMPLE = {"T": "40 degC", "p": "300 bar", "density": "600 kg/m3", "until": "fully vapor"}
 
 Path_ = str | os.PathLike
@@ -90,26 +85,14 @@ def load_route(path: Path_, fmt: str | None = None) -> Route:
         Taken from the file's suffix if not given; a file with another suffix is read as JSON
         when it starts with ``{`` and as YAML otherwise.
     """
-    p = Path(path)
-    name = str(path)
-    try:
-        size = p.stat().st_size
-    except OSError as exc:
-        raise _error(f"cannot read route file: {exc.strerror or exc}", name) from None
-    if size > MAX_BYTES:
-        raise _error(
-            f"route file is {size} bytes, more than the {MAX_BYTES} bytes phasepath reads", name
-        )
-    try:
-        raw = p.read_bytes()
-    except OSError as exc:
-        raise _error(f"cannot read route file: {exc.strerror or exc}", name) from None
+    name = fileio.path_text(path, RouteFileError)
+    raw = fileio.read_bytes(name, MAX_BYTES, RouteFileError)
     try:
         text = raw.decode("utf-8-sig")
     except UnicodeDecodeError as exc:
         line = raw.count(b"\n", 0, exc.start) + 1
         raise _error("route file is not UTF-8 text", name, line=line) from None
-    return loads_route(text, fmt or _SUFFIX.get(p.suffix.lower()), source=name)
+    return loads_route(text, fmt or _SUFFIX.get(Path(name).suffix.lower()), source=name)
 
 
 def loads_route(text: str, fmt: str | None = "json", *, source: str = "<text>") -> Route:
@@ -164,20 +147,15 @@ def save_route(route: Route, path: Path_, fmt: str | None = None) -> Path:
 
     Returns the path written.
     """
-    p = Path(path)
+    name = fileio.path_text(path, RouteFileError)
+    p = Path(name)
     fmt = fmt or _SUFFIX.get(p.suffix.lower())
     if fmt is None:
         raise RouteFileError(
-            f"cannot tell the format of {str(path)!r} from its suffix "
+            f"cannot tell the format of {name!r} from its suffix "
             f"{p.suffix!r}: use .json, .yaml or .yml, or pass fmt="
         )
-    text = dumps_route(route, fmt)
-    try:
-        p.write_text(text, encoding="utf-8")
-    except OSError as exc:
-        raise RouteFileError(
-            f"{str(path)}: cannot write route file: {exc.strerror or exc}"
-        ) from None
+    fileio.write_text(name, dumps_route(route, fmt), RouteFileError)
     return p
 
 
@@ -196,13 +174,8 @@ def schema() -> dict[str, Any]:
 def _document(route: Route) -> dict[str, Any]:
     d = route.to_dict()
     sub = d["substance"]
-    if not isinstance(sub, str) and getattr(sub, "source_data", None) is not None:
+    if isinstance(sub, Substance):
         sub = sub.to_dict()  # built from data: its inputs travel with the route
-    elif not isinstance(sub, str):
-        raise RouteFileError(
-            f"the substance {sub!r} of this route is not a named substance: only routes of "
-            f"named substances can be saved"
-        )
     doc: dict[str, Any] = {
         "format": FORMAT,
         "version": VERSION,
@@ -251,13 +224,7 @@ def _error(
     field: str | None = None,
     line: int | None = None,
 ) -> RouteFileError:
-    where = source + (f":{line}" if line is not None else "")
-    what = f"field {field}: " if field else ""
-    exc = RouteFileError(f"{where}: {what}{msg}")
-    exc.source = source  # type: ignore[attr-defined]
-    exc.field = field  # type: ignore[attr-defined]
-    exc.line = line  # type: ignore[attr-defined]
-    return exc
+    return RouteFileError(msg, source=source, field=field, line=line)
 
 
 def _field_name(path: tuple[Any, ...]) -> str:
@@ -462,8 +429,6 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
             hint = " (in YAML, put quotes around it)" if key == "substance" else ""
             raise fail(f"{data[key]!r} is not text{hint}", key)
     if isinstance(data["substance"], dict):
-        from .substances import Substance
-
         try:
             Substance.from_dict(data["substance"])
         except PhasePathError as exc:
@@ -499,12 +464,12 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
             title=data.get("title", ""),
             notes=data.get("notes", ""),
         )
+    except UnknownSubstanceError as exc:
+        raise fail(str(exc), "substance") from exc
     except PhasePathError as exc:
-        if type(exc).__name__ == "UnknownSubstanceError":
-            raise fail(str(exc), "substance") from None
         if "elevation" in str(exc) and elevation is not None:
-            raise fail(str(exc), "elevation") from None
-        raise fail(str(exc), "start") from None
+            raise fail(str(exc), "elevation") from exc
+        raise fail(str(exc), "start") from exc
     for i, leg in enumerate(legs):
         if not isinstance(leg, dict):
             raise fail(
@@ -515,23 +480,23 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
         kind = leg.get("kind")
         if kind is None:
             raise fail(
-                f"missing value: every leg needs a kind ({', '.join(_LEG_TARGETS)})",
+                f"missing value: every leg needs a kind ({', '.join(LEG_KINDS)})",
                 "legs",
                 i,
                 "kind",
             )
-        if not isinstance(kind, str) or kind not in _LEG_TARGETS or kind not in LEG_KINDS:
+        if not isinstance(kind, str) or kind not in LEG_KINDS:
             raise fail(
-                f"unknown leg kind {kind!r}; known: {', '.join(_LEG_TARGETS)}", "legs", i, "kind"
+                f"unknown leg kind {kind!r}; known: {', '.join(LEG_KINDS)}", "legs", i, "kind"
             )
-        targets = _LEG_TARGETS[kind]
+        targets = LEG_KINDS[kind].targets
         _keys(leg, ("kind",) + targets, ("kind",), ("legs", i), fail)
         target = _one_of(leg, targets, ("legs", i), fail)
         _value(leg[target], target, ("legs", i, target), fail)
         try:
             route.add(kind, **{target: leg[target]})
         except PhasePathError as exc:
-            raise fail(str(exc), "legs", i, target) from None
+            raise fail(str(exc), "legs", i, target) from exc
     return route
 
 

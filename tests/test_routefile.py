@@ -12,7 +12,7 @@ import json
 import pytest
 
 import phasepath as pp
-from phasepath import io
+from phasepath import routefile as io
 from phasepath.errors import RouteFileError
 
 yaml = pytest.importorskip("yaml")
@@ -193,9 +193,15 @@ def test_missing_and_binary_files(tmp_path) -> None:
 
 
 def test_every_leg_kind_has_file_fields() -> None:
-    from phasepath.route import LEG_KINDS
+    """The schema offers every leg kind of the table of leg kinds, with exactly its targets."""
+    from phasepath.records import LEG_KINDS
 
-    assert set(io._LEG_TARGETS) == set(LEG_KINDS)
+    shapes = io.schema()["properties"]["legs"]["items"]["oneOf"]
+    fields = {
+        shape["properties"]["kind"]["const"]: set(shape["properties"]) - {"kind"}
+        for shape in shapes
+    }
+    assert fields == {name: set(kind.targets) for name, kind in LEG_KINDS.items()}
 
 
 # -- the JSON Schema, cross-checked with an independent validator --------------------------------

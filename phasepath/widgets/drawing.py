@@ -19,20 +19,22 @@ import math
 from typing import Any
 
 from ..errors import PhasePathError, RouteError
+from ..records import LEG_KINDS
 from ..route import Route
 from ..units import convert, parse_pressure, parse_temperature
 
 Spec = dict[str, Any]
 
-#: The coordinate a click sets for each leg kind: an isobar moves in T (it holds p), an isotherm
-#: in p; a constant-volume leg goes to the clicked temperature, a constant-enthalpy or
-#: constant-entropy leg to the clicked pressure (the other coordinate comes from the EOS).
-MOVES = {"isobar": "T", "isotherm": "p", "isochore": "T", "isenthalp": "p", "isentrope": "p"}
+#: The coordinate a click sets for each leg kind (:attr:`phasepath.records.LegKind.moves`): an
+#: isobar moves in T (it holds p), an isotherm in p; a constant-volume leg goes to the clicked
+#: temperature, a constant-enthalpy or constant-entropy leg to the clicked pressure (the other
+#: coordinate comes from the EOS).
+MOVES = {name: kind.moves for name, kind in LEG_KINDS.items()}
 #: Every leg kind the planner draws, in the order its controls offer them.
-KINDS = tuple(MOVES)
-#: Legs that hold T or p fixed (drawn straight); the others are curves found from the EOS.
-_STRAIGHT = ("isobar", "isotherm")
-_HELD = {"isobar": "p", "isotherm": "T"}
+KINDS = tuple(LEG_KINDS)
+#: Legs that hold T or p fixed (drawn straight), with the coordinate they hold.
+_HELD = {name: kind.held for name, kind in LEG_KINDS.items() if kind.held in ("T", "p")}
+_STRAIGHT = tuple(_HELD)
 
 
 def empty(substance: Any) -> Spec:
@@ -184,7 +186,7 @@ def move_corner(
                 # a drag: the held coordinate follows from an event or the EOS; the corner
                 # slides along its own leg only
         return new
-    if kind == "isochore":
+    if set(LEG_KINDS[kind].targets) == {"T", "p"}:  # a sealed vessel: to T or to p
         key = target(own) if drag else ("T" if T_text is not None else "p")
         own.pop("T", None)
         own.pop("p", None)
@@ -222,10 +224,9 @@ def _set_held(spec: Spec, j: int, coord: str, value: str, index: int) -> None:
             f"the {'temperature' if coord == 'T' else 'pressure'} of corner {index} follows "
             f"from the event of leg {j} ({leg['until']!r}): change that leg instead"
         )
-    if leg["kind"] in _STRAIGHT or leg["kind"] == "isochore" or coord == "p":
-        if leg["kind"] == "isochore":
-            leg.pop("T", None)
-            leg.pop("p", None)
+    if coord in LEG_KINDS[leg["kind"]].targets:
+        for other in LEG_KINDS[leg["kind"]].targets:
+            leg.pop(other, None)
         leg[coord] = value
         return
     raise RouteError(

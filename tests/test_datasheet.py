@@ -46,13 +46,10 @@ import pytest
 
 import phasepath as pp
 from phasepath.correlations import vapor_pressure as vp
-from phasepath.custom import (
-    LATENT_HEAT_MODEL,
-    approximate_latent_heat,
-    fit_antoine,
-    fit_clausius_clapeyron,
-)
+from phasepath.datasheet import fit_antoine, fit_clausius_clapeyron
+from phasepath.energetics import latent_heat
 from phasepath.errors import OutOfRangeError, PhasePathError
+from phasepath.models import ClausiusClapeyron
 from phasepath.substances import NO_SUBLIMATION
 
 chemicals = pytest.importorskip("chemicals")
@@ -146,7 +143,7 @@ def test_boiling_temperatures_on_isobars_match_reference_eos(key: str) -> None:
             continue
         tol = TOL_P_DATA if p >= 5e3 else TOL_P_LOW
         c = _boiling_on_isobar(sub, p, float(T))
-        (T_ref, _, _), = ref.vapor.temperatures_at(p)
+        (T_ref,) = [r.root for r in ref.vapor.temperatures_at(p)]
         assert abs(ref.vapor.p_of_T(c.T) / p - 1.0) < tol, (key, p)
         assert abs(c.T - T_ref) < tol / _dlnp_dT(ref, T_ref), (key, p, c.T, T_ref)
         checked += p >= 5e3
@@ -156,7 +153,7 @@ def test_boiling_temperatures_on_isobars_match_reference_eos(key: str) -> None:
 @pytest.mark.parametrize("key", list(FLUIDS))
 def test_normal_boiling_point_matches_reference_eos(key: str) -> None:
     sub, ref = built(key)
-    (T_ref, _, _), = ref.vapor.temperatures_at(101325.0)
+    (T_ref,) = [r.root for r in ref.vapor.temperatures_at(101325.0)]
     c = _boiling_on_isobar(sub, 101325.0, T_ref)
     assert abs(c.T - T_ref) < TOL_P_DATA / _dlnp_dT(ref, T_ref)
 
@@ -191,7 +188,7 @@ def test_melting_on_isobars_matches_reference_eos() -> None:
     (melt,) = sub.melting
     assert melt.T_min == sub.triple[0] and melt.p_of_T(sub.triple[0]) == sub.triple[1]
     for p in (1e6, 1e7, 5e7, 1e8):
-        (T_ref, _, _), = ref.melting[0].temperatures_at(p)
+        (T_ref,) = [r.root for r in ref.melting[0].temperatures_at(p)]
         rep = pp.Route(sub, T=T_ref + 20.0, p=p).isobar(T=sub.triple[0] + 0.5).analyze()
         (c,) = rep.crossings
         assert c.kind == "freezing" and c.boundary == "melting"
@@ -202,13 +199,14 @@ def test_latent_heat_of_vaporization_is_approximate_and_close_at_low_pressure() 
     sub, ref = built("toluene")
     for T in (300.0, 320.0):  # vapor pressure 4 kPa and 10 kPa: the gas is nearly ideal
         c = _boiling_on_isobar(sub, sub.vapor.p_of_T(T), T)
-        assert c.latent_heat_model == LATENT_HEAT_MODEL and "approximate" in c.latent_heat_model
-        L_ref = ref.eos.latent_heat_vaporization(c.T)
+        assert c.latent_heat_model == ClausiusClapeyron.MODEL
+        assert "approximate" in c.latent_heat_model
+        L_ref = ref.fluid.latent_heat_vaporization(c.T)
         # ideal gas at p < 20 kPa: |1 - Z| of the vapor about 1 % (common practice)
         assert abs(c.latent_heat / L_ref - 1.0) < 0.015
     # at 1 atm the ideal-gas value runs high (Z of the vapor about 0.95): say so, don't hide it
     c = _boiling_on_isobar(sub, 101325.0, 383.0)
-    assert 1.0 < c.latent_heat / ref.eos.latent_heat_vaporization(c.T) < 1.08
+    assert 1.0 < c.latent_heat / ref.fluid.latent_heat_vaporization(c.T) < 1.08
 
 
 # -- tier 3: synthetic data, known by construction -----------------------------------------------
@@ -248,7 +246,7 @@ def test_straight_line_misplaces_boiling_point_antoine_does_not() -> None:
     """Six vapor pressures of toluene (CoolProp 8.0.0 reference EOS) from 330 K to 430 K."""
     ref = pp.substance("Toluene")
     pts = [(T, ref.vapor.p_of_T(T)) for T in np.linspace(330.0, 430.0, 6)]
-    (T_b, _, _), = ref.vapor.temperatures_at(101325.0)
+    (T_b,) = [r.root for r in ref.vapor.temperatures_at(101325.0)]
     line = pp.Substance.from_data("line", critical=ref.critical, triple=(ref.triple[0], None),
                                   vapor_points=pts[::5])  # two points: the straight line
     curve = pp.Substance.from_data("curve", critical=ref.critical, triple=(ref.triple[0], None),
@@ -371,13 +369,12 @@ def test_unknown_key_in_a_saved_substance() -> None:
 
 def test_latent_heat_helper_refuses_what_it_cannot_know() -> None:
     sub = _bare()
-    L, model, note = approximate_latent_heat(sub, "melting", 200.0, 1e6, ("solid", None),
-                                             ("liquid", None))
-    assert L is None and model is None and note == "no enthalpy of fusion given"
+    L = latent_heat(sub, "melting", 200.0, 1e6, ("solid", None), ("liquid", None))
+    assert L.value is None and L.model is None and L.note == "no enthalpy of fusion given"
 
 
 def test_route_file_embeds_a_substance_built_from_data(tmp_path) -> None:
-    io = pytest.importorskip("phasepath.io")
+    io = pytest.importorskip("phasepath.routefile")
     sub, _ = built("toluene")
     route = pp.Route(sub, T=300.0, p=101325.0, title="embedded").isobar(T=420.0)
     for fmt in ("json", "yaml"):

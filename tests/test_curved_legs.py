@@ -35,9 +35,10 @@ from hypothesis import strategies as st
 from scipy.optimize import brentq
 
 import phasepath as pp
+import phasepath.states
 from phasepath.analysis import analyze
-from phasepath.atmosphere import ambient_pressure
 from phasepath.correlations import co2 as co2_model
+from phasepath.correlations.atmosphere import ambient_pressure
 from phasepath.errors import NonFiniteError, OutOfRangeError, RouteError, UnitError
 
 CP = pytest.importorskip("CoolProp.CoolProp")
@@ -480,7 +481,7 @@ def test_throttled_saturated_co2_vapor_partly_condenses():
     assert h0 == pytest.approx(PropsSI("Hmass", "P", 20e5, "Q", 1, "CO2"), rel=1e-9)
     out = report.crossings[1]  # dries out where h''(T) = h0 again, on the low side of the peak
     assert PropsSI("Hmass", "T", out.T, "Q", 1, "CO2") == pytest.approx(h0, rel=1e-9)
-    mid = pp.processes.flash_p(pp.substance("CO2"), 18e5, "h", h0)
+    mid = pp.states.flash_p(pp.substance("CO2"), 18e5, "h", h0)
     assert mid.vapor_fraction == pytest.approx(
         PropsSI("Q", "P", 18e5, "Hmass", h0, "CO2"), rel=1e-6
     )
@@ -851,7 +852,7 @@ def test_hazards_reach_the_html_report():
         (
             lambda: pp.Route("CO2", T=288.15, density=1150.0).isochore(T=1900.0),
             OutOfRangeError,
-            ["'T=1900.0'", "8e+08"],
+            ["T=1900.0", "8e+08"],
         ),
         (
             lambda: pp.Route("CO2", T=288.15, density=750.0).isochore(p="1e5 bar"),

@@ -1,0 +1,177 @@
+"""The catalog: names and aliases to substances, and the substances built from data this session.
+
+:func:`substance` resolves a name or alias (case-insensitive, blanks and dashes ignored) to the
+:class:`~phasepath.substances.Substance` of a CoolProp fluid, built once by
+:mod:`phasepath.reference` and kept; substances built from data (:func:`from_data`) are
+registered here by name, after the reference names. :func:`from_dict` rebuilds either kind from
+its plain data (``Substance.to_dict``).
+
+>>> substance("carbon dioxide").name
+'CarbonDioxide'
+>>> substance("Nitrogen") is substance("N2")
+True
+>>> "CarbonDioxide" in substances() and len(substances()) > 100
+True
+"""
+
+from __future__ import annotations
+
+import difflib
+import json
+import re
+import threading
+from collections.abc import Mapping
+from functools import cache, lru_cache
+from typing import Any
+
+from . import datasheet, reference
+from .eos import fluid_aliases, fluid_names
+from .errors import PhasePathError, UnknownSubstanceError, shown
+from .substances import Substance
+
+__all__ = ["substance", "substances", "from_data", "from_dict", "registered"]
+
+# Common names that CoolProp's alias lists do not already hold.
+_EXTRA_ALIASES = {
+    "water": "Water",
+    "steam": "Water",
+    "h2o": "Water",
+    "carbon dioxide": "CarbonDioxide",
+    "carbon monoxide": "CarbonMonoxide",
+    "nitrogen": "Nitrogen",
+    "argon": "Argon",
+    "methane": "Methane",
+    "oxygen": "Oxygen",
+    "hydrogen": "Hydrogen",
+    "helium": "Helium",
+    "neon": "Neon",
+    "krypton": "Krypton",
+    "xenon": "Xenon",
+    "ammonia": "Ammonia",
+    "propane": "n-Propane",
+    "butane": "n-Butane",
+    "ethane": "Ethane",
+    "ethylene": "Ethylene",
+    "ethanol": "Ethanol",
+    "methanol": "Methanol",
+    "nitrous oxide": "NitrousOxide",
+    "sulfur dioxide": "SulfurDioxide",
+    "hydrogen sulfide": "HydrogenSulfide",
+    "heavy water": "HeavyWater",
+    "air": "Air",
+}
+
+_LOADING = threading.RLock()
+_REGISTRY: dict[str, Substance] = {}  # built from data this session, by name (latest wins)
+_BY_RECIPE: dict[str, Substance] = {}  # identical recipes give one object
+
+
+def _key(text: str) -> str:
+    return re.sub(r"[\s\-_,()]+", "", text).lower()
+
+
+@lru_cache(maxsize=1)
+def _alias_map() -> dict[str, str]:
+    out: dict[str, str] = {}
+    for name in fluid_names():
+        out[_key(name)] = name
+        for alias in fluid_aliases(name):
+            out.setdefault(_key(alias), name)
+    for alias, name in _EXTRA_ALIASES.items():
+        if name in out.values():
+            out[_key(alias)] = name
+    return out
+
+
+def substances() -> list[str]:
+    """Every substance of the reference library, by its CoolProp name."""
+    return fluid_names()
+
+
+def substance(name: object) -> Substance:
+    """The :class:`Substance` for a name or alias (case-insensitive), or a Substance itself.
+
+    A mapping is the plain data of a substance (:meth:`Substance.to_dict`), as saved in a route
+    file.
+    """
+    if isinstance(name, Substance):
+        return name
+    if isinstance(name, Mapping):
+        return from_dict(name)
+    if not isinstance(name, str) or not name.strip():
+        raise _unknown(name)
+    resolved = _alias_map().get(_key(name))
+    if resolved is None:
+        if name.strip() in _REGISTRY:
+            return _REGISTRY[name.strip()]
+        raise _unknown(name)
+    with _LOADING:  # first use from several threads at once: one Substance, one CoolProp load
+        return _reference(resolved)
+
+
+@cache
+def _reference(name: str) -> Substance:
+    return reference.build(name)
+
+
+def _unknown(name: object) -> UnknownSubstanceError:
+    suggestions: list[str] = []
+    if isinstance(name, str) and name.strip():
+        keys = _alias_map()
+        for c in difflib.get_close_matches(_key(name), list(keys), n=4, cutoff=0.6):
+            if keys[c] not in suggestions:
+                suggestions.append(keys[c])
+    hint = f"; did you mean {', '.join(map(repr, suggestions[:3]))}?" if suggestions else ""
+    return UnknownSubstanceError(
+        f"unknown substance {shown(name)}{hint} (phasepath.substances() lists the "
+        f"names it knows; aliases such as 'CO2' or 'water' work too)",
+        value=name,
+        suggestions=tuple(suggestions[:3]),
+    )
+
+
+def from_data(name: str, **data: Any) -> Substance:
+    """A substance built from data (:func:`phasepath.datasheet.from_data`), registered by name
+    so that :func:`substance` and everything that takes a name finds it."""
+    sub = datasheet.from_data(name, **data)
+    if _key(sub.name) not in _alias_map():  # a reference substance keeps its name
+        _REGISTRY[sub.name] = sub
+    return sub
+
+
+def registered() -> dict[str, Substance]:
+    """Substances built from data in this session, by name (the latest of each name).
+
+    ``pp.substance(name)`` and everything that takes a name (routes, widgets) find them, after
+    the reference substances: a substance built under a reference name is reachable only as an
+    object.
+    """
+    return dict(_REGISTRY)
+
+
+def from_dict(data: Mapping[str, Any]) -> Substance:
+    """The substance a :meth:`Substance.to_dict` mapping describes (identical mappings give one
+    object)."""
+    if not isinstance(data, Mapping) or "name" not in data:
+        raise PhasePathError(f"a substance mapping needs a 'name' (got {shown(data)})")
+    extra = [k for k in data if k != "name" and k not in datasheet.KEYS]
+    if extra:
+        raise PhasePathError(
+            f"substance {data.get('name')!r}: unknown key(s) "
+            f"{', '.join(map(repr, extra))}; known: name, {', '.join(datasheet.KEYS)}"
+        )
+    if len(data) == 1:
+        return substance(data["name"])
+    try:
+        key = json.dumps(data, sort_keys=True)
+    except (TypeError, ValueError):
+        key = ""
+    if key and key in _BY_RECIPE:
+        return _BY_RECIPE[key]
+    args = {k: v for k, v in data.items() if k != "name"}
+    if isinstance(args.get("triple"), list):
+        args["triple"] = tuple(args["triple"])
+    sub = from_data(data["name"], **args)
+    if key:
+        _BY_RECIPE[key] = sub
+    return sub
