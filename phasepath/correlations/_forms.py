@@ -67,7 +67,7 @@ def reduced_exponential(
         elif ti == 1.0:
             ds += ai
         elif ti < 1.0:
-            ds = -math.inf if ai > 0 else math.inf
+            ds += math.inf if ai > 0 else -math.inf
     p = pt * math.exp(Tt / T * s)
     # d/dT [ (Tt/T) s(theta) ] = -(Tt/T**2) s + (Tt/T) s'(theta) * (-1/Tt)
     slope = p * (-Tt / T**2 * s - ds / T)
