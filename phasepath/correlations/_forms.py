@@ -36,9 +36,7 @@ def checked_T(T: float, lo: float, hi: float, what: str, source: str) -> float:
     return x
 
 
-def inverse_power_series(
-    T: float, p_ref: float, A: Sequence[float]
-) -> tuple[float, float]:
+def inverse_power_series(T: float, p_ref: float, A: Sequence[float]) -> tuple[float, float]:
     """ln(p/p_ref) = sum_i A_i / T**i (i = 0, 1, ...); returns (p, dp/dT)."""
     s = 0.0
     ds = 0.0

@@ -60,9 +60,7 @@ MELTING_T_MAX = simon_absolute_inverse(3500.0 * KGF_CM2, *_MG)
 
 
 def _mg(T: float) -> tuple[float, float]:
-    x = checked_T(
-        T, MELTING_T_MIN, MELTING_T_MAX, "helium-4 melting curve", "Mills & Grilly 1955"
-    )
+    x = checked_T(T, MELTING_T_MIN, MELTING_T_MAX, "helium-4 melting curve", "Mills & Grilly 1955")
     return simon_absolute(x, *_MG)
 
 

@@ -19,7 +19,7 @@ N2O         ``"Bell-REFPROP10-N2O"`` (unpublished)     ln(p/MPa) = sum A_i/T^i 1
 in a journal: they are the one- or two-term fits of E. W. Lemmon (2002-2003) and I. H. Bell (2018)
 distributed with the fluid files of NIST REFPROP 10, as quoted identically in two independent
 public programs (xenon, krypton, oxygen, hydrogen) or in one (N2O). Their only check is the
-triple point they were fitted to; the tests add the Clapeyron relation at the triple point.
+triple point they were fitted to; the tests add Clausius-Clapeyron below the triple point.
 Normal hydrogen's equation uses p_t = 7.7 kPa, 4.6 % above the triple-point pressure of its
 own reference equation (7.3578 kPa, Leachman et al. 2009): flagged, see the tests.
 
@@ -350,7 +350,7 @@ def sublimation_dpdT_oxygen_lemmon(T: float) -> float:
 
 
 def sublimation_pressure_hydrogen_lemmon(T: float) -> float:
-    """Sublimation pressure of normal hydrogen, Lemmon (unpublished), as distributed with REFPROP 10.
+    """Sublimation pressure of normal hydrogen, Lemmon (unpublished), as in REFPROP 10.
 
     ln(p/p_t) = (T_t/T) a_1 (1 - T/T_t)**0.93, a_1 = -8.065, T_t = 13.957 K, p_t = 7.7 kPa.
     Its p_t is 4.6 % above the triple-point pressure of the hydrogen equation of state
@@ -409,7 +409,7 @@ def _n2o(T: float) -> tuple[float, float]:
 
 
 def sublimation_pressure_n2o_bell(T: float) -> float:
-    """Sublimation pressure of nitrous oxide, Bell (2018, unpublished), as distributed with REFPROP 10.
+    """Sublimation pressure of nitrous oxide, Bell (2018, unpublished), as in REFPROP 10.
 
     ln(p/MPa) = sum_{i=0..3} A_i / T**i, A = (13.7978754, -3181.20979, 63451.5147, -4189965.37).
 
