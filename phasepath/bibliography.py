@@ -83,6 +83,77 @@ SOURCES: dict[str, str] = {
         "Simon & Glatzel, Bemerkungen zur Schmelzdruckkurve, Z. Anorg. Allg. Chem. 178, 309 "
         "(1929), doi:10.1002/zaac.19291780123"
     ),
+    # Published melting and sublimation curves (correlations.sublimation_reviews,
+    # sublimation_reference_eos, melting_published, helium)
+    "BrownZiegler1980": (
+        "Brown & Ziegler, Vapor pressure and heats of vaporization and sublimation of liquids and "
+        "solids of interest in cryogenics below 1-atm pressure, Adv. Cryog. Eng. 25, 662 (1980), "
+        "doi:10.1007/978-1-4613-9856-1_76"
+    ),
+    "REFPROP10": (
+        "Lemmon, Bell, Huber & McLinden, NIST Standard Reference Database 23: Reference Fluid "
+        "Thermodynamic and Transport Properties (REFPROP), Version 10.0, National Institute of "
+        "Standards and Technology (2018), doi:10.18434/T4/1502528"
+    ),
+    "REFPROP10-BZ": (
+        "Brown & Ziegler (1980) temperature terms with the constant term refitted to the triple "
+        "point of the reference equation of state, as distributed with the fluid files of NIST "
+        "REFPROP 10 (see BrownZiegler1980, REFPROP10)"
+    ),
+    "REFPROP10-FS": (
+        "Fray & Schmitt (2009) temperature terms with the constant term refitted to the triple "
+        "point of the reference equation of state, as distributed with the fluid files of NIST "
+        "REFPROP 10 (see FraySchmitt2009, REFPROP10)"
+    ),
+    "Lemmon-REFPROP10-sub": (
+        "Lemmon (2002-2003), sublimation-pressure fits of xenon, krypton, oxygen and normal "
+        "hydrogen, unpublished; distributed with the fluid files of NIST REFPROP 10 (REFPROP10)"
+    ),
+    "Bell-REFPROP10-N2O": (
+        "Bell (2018), sublimation-pressure fit of nitrous oxide, unpublished; distributed with "
+        "the fluid file of NIST REFPROP 10 (REFPROP10)"
+    ),
+    "Gao2023-NH3": (
+        "Gao, Wu, Bell, Harvey & Lemmon, A Reference Equation of State with an Associating Term "
+        "for the Thermodynamic Properties of Ammonia, J. Phys. Chem. Ref. Data 52, 013102 (2023), "
+        "doi:10.1063/5.0128269"
+    ),
+    "GuderWagner2009": (
+        "Guder & Wagner, A Reference Equation of State for the Thermodynamic Properties of Sulfur "
+        "Hexafluoride (SF6) for Temperatures from the Melting Line to 625 K and Pressures up to "
+        "150 MPa, J. Phys. Chem. Ref. Data 38, 33 (2009), doi:10.1063/1.3037344"
+    ),
+    "MichelsPrins1962": (
+        "Michels & Prins, The melting lines of argon, krypton and xenon up to 1500 atm; "
+        "representation of the results by a law of corresponding states, Physica 28, 101 (1962), "
+        "doi:10.1016/0031-8914(62)90096-4"
+    ),
+    "LemmonSpan2006": (
+        "Lemmon & Span, Short Fundamental Equations of State for 20 Industrial Fluids, J. Chem. "
+        "Eng. Data 51, 785 (2006), doi:10.1021/je050186n"
+    ),
+    "Leachman2009": (
+        "Leachman, Jacobsen, Penoncello & Lemmon, Fundamental Equations of State for "
+        "Parahydrogen, Normal Hydrogen, and Orthohydrogen, J. Phys. Chem. Ref. Data 38, 721 "
+        "(2009), doi:10.1063/1.3160306"
+    ),
+    "MillsGrilly1955": (
+        "Mills & Grilly, Melting Curves of He3, He4, H2, D2, Ne, N2, and O2 up to 3500 kg/cm2, "
+        "Phys. Rev. 99, 480 (1955), doi:10.1103/PhysRev.99.480"
+    ),
+    "McCartyArp1990": (
+        "McCarty & Arp, A New Wide Range Equation of State for Helium, Adv. Cryog. Eng. 35, 1465 "
+        "(1990), doi:10.1007/978-1-4613-0639-9_174"
+    ),
+    "Datchi2000": (
+        "Datchi, Loubeyre & LeToullec, Extended and accurate determination of the melting curves "
+        "of argon, helium, ice (H2O), and hydrogen (H2), Phys. Rev. B 61, 6535 (2000), "
+        "doi:10.1103/PhysRevB.61.6535"
+    ),
+    "Younglove1982": (
+        "Younglove, Thermophysical Properties of Fluids. I. Argon, Ethylene, Parahydrogen, "
+        "Nitrogen, Nitrogen Trifluoride, and Oxygen, J. Phys. Chem. Ref. Data 11, Suppl. 1 (1982)"
+    ),
 }
 
 
