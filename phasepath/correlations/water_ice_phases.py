@@ -10,11 +10,18 @@ with the melting curves of IAPWS R14-08 on the liquid side (source ids ``"Dunaev
 points, but they do not pass exactly through them: at its end points a line misses the triple
 point by up to 0.19 K (0.33 K for VI-VIII, 0.69 K for VII-VIII). phasepath therefore shifts each
 line in temperature so that it passes exactly through its end triple points: by a constant where
-one end is a triple point, by a term linear in P where both ends are. The shift is far below the
-spread between independent determinations of these lines (tens of MPa for V-VI and II-VI, see
-the tests), and it makes the boundaries meet in points and end on the R14-08 melting branches, so
+one end is a triple point, by a term linear in P where both ends are. (At a triple point with
+liquid the line ends on the R14-08 melting branch of the ice on its low-temperature side, within
+2.3 kPa of the tabulated point; see :data:`BOUNDARIES`.) The shift is far below the spread
+between independent determinations of these lines (tens of MPa for V-VI and II-VI, see the
+tests), and it makes the boundaries meet in points and end on the R14-08 melting branches, so
 :func:`ice_form` names, just below a melting branch, the ice of that branch.
 :func:`dunaeva_2010_temperature` gives the published equation without the shift.
+
+Ranges: Table 2 gives each row a temperature range and a pressure range; they disagree at the
+open low-temperature ends (Ih-II: 1500 bar lies at 171 K, below the stated 200 K). phasepath
+takes the temperature ranges, which end at the triple points and at 200 K. For VI-VIII this
+reaches 1956 MPa at 200 K, 44 MPa below the 2000 MPa the table gives as its lowest pressure.
 
 Pressures are in pascal, temperatures in kelvin. :func:`boundary` returns a
 :class:`SolidBoundary` with ``pressure(T)``, ``dpdT(T)`` and ``temperature(p)``;
@@ -243,6 +250,44 @@ def dunaeva_2010_temperature(a: str, b: str, p: float) -> float:
     return _t_dunaeva(coef, P)
 
 
+# --- the melting and sublimation curves of IAPWS R14-08 (eqs. 2 to 7) -------------------------
+# Same equations as phasepath.correlations.water_iapws (a test checks they agree); repeated
+# here so that this module depends on nothing of phasepath but its errors.
+
+
+def _melt_ih(T: float) -> float:
+    th = T / 273.16
+    a = (0.119539337e7, 0.808183159e5, 0.333826860e4)
+    b = (0.300000e1, 0.257500e2, 0.103750e3)
+    return 611.657 * (1.0 + sum(ai * (1.0 - th**bi) for ai, bi in zip(a, b, strict=True)))
+
+
+def _melt_iii(T: float) -> float:
+    return 208.566e6 * (1.0 - 0.299948 * (1.0 - (T / 251.165) ** 60))
+
+
+def _melt_v(T: float) -> float:
+    return 350.100e6 * (1.0 - 1.18721 * (1.0 - (T / 256.164) ** 8))
+
+
+def _melt_vi(T: float) -> float:
+    return 632.400e6 * (1.0 - 1.07476 * (1.0 - (T / 273.31) ** 4.6))
+
+
+def _melt_vii(T: float) -> float:
+    th = T / 355.0
+    return 2216e6 * math.exp(
+        1.73683 * (1.0 - 1.0 / th) - 0.544606e-1 * (1.0 - th**5) + 0.806106e-7 * (1.0 - th**22)
+    )
+
+
+def _sublimation(T: float) -> float:
+    th = T / 273.16
+    a = (-0.212144006e2, 0.273203819e2, -0.610598130e1)
+    b = (0.333333333e-2, 0.120666667e1, 0.170333333e1)
+    return 611.657 * math.exp(sum(ai * th**bi for ai, bi in zip(a, b, strict=True)) / th)
+
+
 # --- the boundaries phasepath uses -----------------------------------------------------------
 
 
@@ -371,15 +416,21 @@ def _build(
     hi_end: TriplePoint | None,
     T_open: float | None = None,
     p_open: float | None = None,
+    hi_p: float | None = None,
 ) -> SolidBoundary:
-    """Shift a Table 2 row through its end triple points; find its open end, if any."""
+    """Shift a Table 2 row through its end triple points; find its open end, if any.
+
+    ``hi_p`` replaces the pressure of the upper end (see :data:`BOUNDARIES`).
+    """
     _, ((_T_lo, _T_hi), (P_lo, P_hi), coef) = _row(low, high)
-    anchors = [tp for tp in (lo_end, hi_end) if tp is not None]
-    (Ta, pa) = (anchors[0].T, anchors[0].p)
+    points = [(lo_end.T, lo_end.p)] if lo_end is not None else []
+    if hi_end is not None:
+        points.append((hi_end.T, hi_end.p if hi_p is None else hi_p))
+    (Ta, pa) = points[0]
     shift0 = Ta - _t_dunaeva(coef, pa / 1e5)
     shift1 = 0.0
-    if len(anchors) == 2:
-        Tb, pb = anchors[1].T, anchors[1].p
+    if len(points) == 2:
+        Tb, pb = points[1]
         shift1 = ((Tb - _t_dunaeva(coef, pb / 1e5)) - shift0) / (pb - pa)
     proto = SolidBoundary(
         low,
@@ -395,9 +446,9 @@ def _build(
         _p_ref=pa,
     )
     ends_Tp: list[tuple[float, float]] = []
-    for tp in (lo_end, hi_end):
+    for tp, p_end in ((lo_end, None), (hi_end, hi_p)):
         if tp is not None:
-            ends_Tp.append((tp.T, tp.p))
+            ends_Tp.append((tp.T, tp.p if p_end is None else p_end))
         elif p_open is not None:
             ends_Tp.append((proto._t(p_open), p_open))
         else:
@@ -425,15 +476,20 @@ def _build(
     )
 
 
+# A line that ends on a liquid triple point ends there on the melting branch of the ice on its
+# low-temperature side (III at 256.164 K, V at 273.31 K, VI at 355 K), not at the tabulated
+# pressure: the branches of R14-08 miss the tabulated points by up to 2.3 kPa (ice VI at 355 K:
+# 2216.002257 MPa), and a line ending below its branch would leave, next to the triple point,
+# states just above that branch on the far side of the line.
 BOUNDARIES: tuple[SolidBoundary, ...] = (
     _build("Ih", "II", None, _tp("Ih", "II", "III"), T_open=T_MIN),
     _build("Ih", "III", _tp("Ih", "II", "III"), _tp("Ih", "liquid", "III")),
     _build("III", "II", _tp("Ih", "II", "III"), _tp("II", "III", "V")),
     _build("II", "V", _tp("II", "V", "VI"), _tp("II", "III", "V")),
     _build("II", "VI", None, _tp("II", "V", "VI"), T_open=T_MIN),
-    _build("III", "V", _tp("II", "III", "V"), _tp("III", "liquid", "V")),
-    _build("V", "VI", _tp("II", "V", "VI"), _tp("V", "liquid", "VI")),
-    _build("VI", "VII", _tp("VI", "VII", "VIII"), _tp("VI", "liquid", "VII")),
+    _build("III", "V", _tp("II", "III", "V"), _tp("III", "liquid", "V"), hi_p=_melt_iii(256.164)),
+    _build("V", "VI", _tp("II", "V", "VI"), _tp("V", "liquid", "VI"), hi_p=_melt_v(273.31)),
+    _build("VI", "VII", _tp("VI", "VII", "VIII"), _tp("VI", "liquid", "VII"), hi_p=_melt_vi(355.0)),
     _build("VI", "VIII", None, _tp("VI", "VII", "VIII"), T_open=T_MIN),
     _build("VIII", "VII", None, _tp("VI", "VII", "VIII"), p_open=P_MAX),
 )
@@ -472,52 +528,6 @@ _B = {frozenset(bd.forms): bd for bd in BOUNDARIES}
 
 def _p(a: str, b: str, T: float) -> float:
     return _B[frozenset((a, b))].pressure(T)
-
-
-# --- the melting and sublimation curves of IAPWS R14-08 (eqs. 2 to 7) -------------------------
-# Same equations as phasepath.correlations.water_iapws (a test checks they agree); repeated
-# here so that this module depends on nothing of phasepath but its errors.
-
-
-def _melt_ih(T: float) -> float:
-    th = T / 273.16
-    return 611.657 * (
-        1.0
-        + 0.119539337e7 * (1.0 - th**3.0)
-        + 0.808183159e5 * (1.0 - th**25.75)
-        + 0.333826860e4 * (1.0 - th**103.75)
-    )
-
-
-def _melt_iii(T: float) -> float:
-    return 208.566e6 * (1.0 - 0.299948 * (1.0 - (T / 251.165) ** 60))
-
-
-def _melt_v(T: float) -> float:
-    return 350.100e6 * (1.0 - 1.18721 * (1.0 - (T / 256.164) ** 8))
-
-
-def _melt_vi(T: float) -> float:
-    return 632.400e6 * (1.0 - 1.07476 * (1.0 - (T / 273.31) ** 4.6))
-
-
-def _melt_vii(T: float) -> float:
-    th = T / 355.0
-    return 2216e6 * math.exp(
-        1.73683 * (1.0 - 1.0 / th) - 0.544606e-1 * (1.0 - th**5) + 0.806106e-7 * (1.0 - th**22)
-    )
-
-
-def _sublimation(T: float) -> float:
-    th = T / 273.16
-    return 611.657 * math.exp(
-        (
-            -0.212144006e2 * th**0.333333333e-2
-            + 0.273203819e2 * th**0.120666667e1
-            - 0.610598130e1 * th**0.170333333e1
-        )
-        / th
-    )
 
 
 def _require_solid(T: float, p: float) -> None:
@@ -565,8 +575,10 @@ def ice_form(T: float, p: float) -> str:
     The solid region is that of the IAPWS R14-08 melting and sublimation curves; within it the
     lines of :data:`BOUNDARIES` divide the forms. On a solid-solid line the high-pressure form
     is named; on a melting curve, the ice of that branch. Because the lines end on the R14-08
-    triple points, a state just on the solid side of a melting branch is named after that
-    branch everywhere, also next to the triple points.
+    branches at the triple points, a state just on the solid side of a melting branch is named
+    after that branch, also next to the triple points, with one exception the release makes:
+    its Ih and III equations differ by 566 Pa at 251.165 K and overlap up to 251.165024 K;
+    there ice Ih is named.
 
     Parameters
     ----------
@@ -619,7 +631,7 @@ def ice_form(T: float, p: float) -> str:
             return "VII"
     elif p >= _p("VI", "VIII", T):
         b78 = _B[frozenset(("VII", "VIII"))]
-        return "VII" if p >= b78.p_min and T >= b78.temperature(p) else "VIII"
+        return "VII" if T >= b78.T_min and p >= b78.pressure(T) else "VIII"
     # ice VI, above the II-VI and V-VI lines
     if T > 273.31:
         return "VI"
@@ -627,8 +639,8 @@ def ice_form(T: float, p: float) -> str:
         return "VI"
     # ices Ih, II, III, V
     if T >= 251.165:  # liquid lies between ice Ih and ices III, V
-        if p <= 208.566e6:
-            return "Ih"
+        if T <= 273.16 and p <= _melt_ih(T):
+            return "Ih"  # also where the Ih and III branches overlap, up to 251.165024 K
         return "III" if T < 256.164 and p < _p("III", "V", T) else "V"
     if T < 238.5:
         if p < _p("Ih", "II", T):
