@@ -18,6 +18,7 @@ from .errors import (
 from .report import Crossing, LegSummary, Report, StatePoint
 from .route import Leg, Route
 from .substances import Substance, substance, substances
+from .sweep import sweep
 
 __version__ = "0.1.0"
 
@@ -28,6 +29,7 @@ __all__ = [
     "Route",
     "Leg",
     "analyze_many",
+    "sweep",
     "Report",
     "Crossing",
     "LegSummary",
