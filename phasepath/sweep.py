@@ -121,7 +121,7 @@ class _Axis:
 
 
 def sweep(
-    plan: Route | Sequence[Route | dict[str, Any]],
+    plan: Route | Mapping[str, Any] | Sequence[Route | dict[str, Any]],
     *,
     workers: int | None = None,
     address: str | None = None,
@@ -132,8 +132,9 @@ def sweep(
 
     Parameters
     ----------
-    plan : Route, or list of Route or route data
-        The planned route whose values the axes vary. A list of routes (or of
+    plan : Route, route data, or list of Route or route data
+        The planned route whose values the axes vary (a dict is route data, as
+        :meth:`Route.to_dict` gives). A list of routes (or of
         :meth:`Route.to_dict` data) instead is analysed as it is, one row per route, and takes
         no axes.
     workers : int, optional
@@ -206,7 +207,7 @@ def sweep(
         front: dict[str, Any] = {
             a.name: [float(point[k]) for point in grid] for k, (a, _) in enumerate(parsed)
         }
-        attrs = {
+        attrs: dict[str, Any] = {
             "plan": _plain(data),
             "axes": {a.name: list(vals) for a, vals in parsed},
             "versions": versions(),
