@@ -12,9 +12,12 @@ and pressure somewhere in a grid of 280-320 K by 60-200 bar, and is vented throu
 
 each run in a fresh Python process that first analyses one point (so that both start from
 loaded substance data and the pool's processes inherit it) and then times the sweep, pool start
-included, with ``time.perf_counter``. The same process reports its peak resident memory
-(``resource.getrusage``: ``RUSAGE_SELF`` for itself, ``RUSAGE_CHILDREN`` for the largest worker
-process) and a hash of the resulting table, so that the runs can be checked to agree bit for bit.
+included, with ``time.perf_counter``, and its CPU time (``resource.getrusage``, itself and its
+joined worker processes): CPU time over wall time is the number of cores the run really had,
+which on a shared machine can be fewer than asked for. The same process reports its peak
+resident memory (``ru_maxrss``: ``RUSAGE_SELF`` for itself, ``RUSAGE_CHILDREN`` for the largest
+worker process) and a hash of the resulting table, so that the runs can be checked to agree bit
+for bit.
 In quick mode each run is repeated three times and the median is shown.
 
 ``run(quick)`` returns the printable lines; ``benchmarks/run.py`` can call it.
@@ -46,12 +49,18 @@ _CHILD = textwrap.dedent("""
         p="1 atm")
     axes = dict(start_T=np.linspace(280.0, 320.0, n), start_p=np.linspace(60e5, 200e5, n))
     pp.sweep(plan, start_T=[293.15], progress=False)  # substance data loaded, as in use
+    def cpu():
+        return sum(r.ru_utime + r.ru_stime for r in (
+            resource.getrusage(resource.RUSAGE_SELF), resource.getrusage(resource.RUSAGE_CHILDREN)))
     base = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
+    c0 = cpu()
     t = time.perf_counter()
     df = pp.sweep(plan, workers=None if workers == 1 else workers, progress=False, **axes)
     dt = time.perf_counter() - t
+    cpu_s = cpu() - c0  # this process and its joined worker processes
     out = {
         "seconds": dt,
+        "cpu_seconds": cpu_s,
         "points": len(df),
         "failed": int((df["error"] != "").sum()),
         "base_kb": base,
@@ -91,10 +100,12 @@ def run(quick: bool) -> list[str]:
     for _ in range(repeats):
         for workers in (1, 2):  # interleaved, so that a change in machine load hits both
             runs[workers].append(_child(n, workers))
-    rate = {}
+    rate, cpu_per_route = {}, {}
     for workers, results in runs.items():
         seconds = statistics.median(r["seconds"] for r in results)
         rate[workers] = n * n / seconds
+        cpu_s = statistics.median(r["cpu_seconds"] for r in results)
+        cpu_per_route[workers] = cpu_s / (n * n)
         peak = statistics.median(r["peak_kb"] for r in results) / 1024
         base = statistics.median(r["base_kb"] for r in results) / 1024
         worker = max(r["worker_kb"] for r in results) / 1024
@@ -106,11 +117,20 @@ def run(quick: bool) -> list[str]:
             f"({1e3 / rate[workers]:.1f} ms per route wall clock; {failed} of {n * n} points "
             f"failed); peak RSS {peak:.0f} MB ({base:.0f} MB before the sweep){extra}"
         )
+        lines.append(
+            f"      CPU {cpu_s:.2f} s ({1e3 * cpu_per_route[workers]:.1f} ms per route): "
+            f"{cpu_s / seconds:.2f} cores busy on average"
+        )
     ratio = rate[2] / rate[1]
     verdict = "met" if ratio >= TARGET_RATIO else "NOT met"
     lines.append(
         f"   scaling 1 -> 2 workers: {ratio:.2f}x (target >= {TARGET_RATIO}x on two cores: "
         f"{verdict}; other work on the machine takes cores too)"
+    )
+    overhead = cpu_per_route[2] / cpu_per_route[1]
+    lines.append(
+        f"   CPU per route on 2 workers / in this process: {overhead:.3f}; with two free cores "
+        f"the scaling would be about {2 / overhead:.2f}x (an estimate from the CPU times)"
     )
     hashes = {r["hash"] for results in runs.values() for r in results}
     lines.append(
