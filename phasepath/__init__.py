@@ -21,6 +21,7 @@ from .records import Crossing, Hazard, Leg, LegSummary, StatePoint
 from .report import Report
 from .route import Route
 from .substances import Substance
+from .sweep import sweep
 from .tables import format_report
 from .version import __version__
 
@@ -32,6 +33,7 @@ __all__ = [
     "Leg",
     "analyze_many",
     "format_report",
+    "sweep",
     "Report",
     "Crossing",
     "LegSummary",

@@ -1,15 +1,21 @@
-"""Batch analysis of many routes, for design sweeps.
+"""Batch analysis of many routes, and the engines that sweeps share.
 
-``analyze_many`` runs :func:`phasepath.analysis.analyze` over a list of routes and returns the
-reports in input order. It uses existing engines only: this process (serial), a
+``analyze_many`` runs :meth:`Route.analyze` over a list of routes and returns the reports in
+input order. It uses existing engines only: this process (serial), a
 :class:`concurrent.futures.ProcessPoolExecutor` on one machine, or a Dask cluster when its
 address is given (Dask is imported only then and is not a dependency of phasepath).
 
-Routes travel to worker processes as plain data (:meth:`Route.to_dict`), and the crossings and
-leg summaries travel back, so results are the same whichever path computed them. A route that
-fails does not stop the others: every failure is collected and raised at the end as one
-:class:`~phasepath.errors.BatchError` naming each failing route, with the finished reports kept
-on the error.
+:func:`map_routes` is the one chunked map over those three engines; ``analyze_many`` and
+:func:`phasepath.sweep` both run on it. Routes travel to worker processes as plain data
+(:func:`route_data`: :meth:`Route.to_dict`, with a substance built from data sent as its data),
+many routes to a task, and plain results travel back, so results are the same whichever engine
+computed them. Every task also reports the versions of phasepath, CoolProp, numpy and scipy it
+ran with, and a worker whose versions differ from this process's is refused, since it could give
+other numbers.
+
+A route that fails does not stop the others: ``analyze_many`` collects every failure and raises
+it at the end as one :class:`~phasepath.errors.BatchError` naming each failing route, with the
+finished reports kept on the error.
 
 >>> import phasepath as pp
 >>> routes = [pp.Route("CO2", T=250.0, p=p).isotherm(p=30e5) for p in (10e5, 20e5)]
@@ -20,16 +26,17 @@ on the error.
 from __future__ import annotations
 
 import math
-from collections.abc import Iterable, Sequence
+from collections.abc import Callable, Iterable, Mapping, Sequence
+from functools import cache
 from typing import TYPE_CHECKING, Any
 
-from .errors import BatchError, PhasePathError
+from .errors import BatchError, PhasePathError, RouteError
+from .report import Report
+from .route import Route
+from .version import __version__
 
-if TYPE_CHECKING:  # pragma: no cover
-    from .report import Report
-    from .route import Route
 
-__all__ = ["analyze_many"]
+__all__ = ["analyze_many", "map_routes", "route_data", "build_route", "versions"]
 
 # One task per this many routes at least: a task round trip costs far more than one analysis.
 _MIN_CHUNK = 8
@@ -71,10 +78,52 @@ def analyze_many(
     BatchError
         If any route fails: the message names every failing route (input index, title) and
         its error; ``exc.failures`` maps index -> error and ``exc.reports`` holds the reports
-        (None where the route failed). Also raised when ``workers`` is not a positive integer
-        or ``address`` is given without Dask installed.
+        (None where the route failed). Also raised when ``workers`` is not a positive integer,
+        ``address`` is given without Dask installed or cannot be reached, or a worker runs other
+        versions of phasepath or its property libraries than this process.
     """
     items = list(routes)
+    results = map_routes(
+        _analyze_one,
+        items,
+        workers=workers,
+        address=address,
+        progress=progress,
+        desc="analysing routes",
+    )
+    return _assemble(items, results)
+
+
+# -- the one chunked map over three engines -------------------------------------------------------
+def map_routes(
+    task: Callable[[Any], Any],
+    items: Sequence[Any],
+    *,
+    workers: int | None = None,
+    address: str | None = None,
+    progress: bool = True,
+    desc: str = "analysing routes",
+) -> list[Any]:
+    """``[task(item) for item in items]`` in this process, in worker processes or on Dask.
+
+    Parameters
+    ----------
+    task : callable
+        A module-level function (it travels by reference) taking a Route or route data and
+        returning plain, picklable data. It must not raise for a failing route: it returns the
+        failure as data, so that one route never sinks the others.
+    items : sequence of Route or dict
+        In this process each item is given to ``task`` as it is; to worker processes and to a
+        cluster each goes as :func:`route_data`, ``ceil(len(items) / (8 * workers))`` items (at
+        least 8) to a task.
+    workers, address, progress
+        As in :func:`analyze_many`; ``desc`` labels the progress bar.
+
+    Returns
+    -------
+    list
+        The results, in the order of ``items``.
+    """
     if workers is not None and (
         isinstance(workers, bool) or not isinstance(workers, int) or workers < 1
     ):
@@ -82,77 +131,81 @@ def analyze_many(
             f"workers = {workers!r} is not a positive whole number of processes "
             "(None or 1 analyses in this process)"
         )
-    payloads = [_payload(r) for r in items]
-    bar = _progress_bar(len(items), progress)
+    bar = _progress_bar(len(items), progress, desc)
     try:
         if address is not None:
-            results = _run_dask(address, payloads, bar)
-        elif workers is None or workers == 1 or len(items) <= 1:
+            return _run_dask(task, address, [route_data(r) for r in items], bar)
+        if workers is None or workers == 1 or len(items) <= 1:
             results = []
             for item in items:  # Route objects are analysed as they are, without a round trip
-                results.append(_analyze_one(item))
+                results.append(task(item))
                 bar.update(1)
-        else:
-            results = _run_processes(payloads, workers, bar)
+            return results
+        return _run_processes(task, [route_data(r) for r in items], workers, bar)
     finally:
         bar.close()
-    return _assemble(items, results)
 
 
-# -- the three engines ----------------------------------------------------------------------------
-def _run_processes(payloads: list[Any], workers: int, bar: Any) -> list[Any]:
+def _run_processes(task: Callable[[Any], Any], payloads: list[Any], workers: int, bar: Any) -> list:
     from concurrent.futures import ProcessPoolExecutor, as_completed
 
-    # Routes on substances that cannot be rebuilt from a name stay in this process.
+    # Routes on substances that cannot travel as data stay in this process.
     local = [i for i, p in enumerate(payloads) if not _portable(p)]
     remote = [i for i, p in enumerate(payloads) if _portable(p)]
     results: list[Any] = [None] * len(payloads)
     for i in local:
-        results[i] = _analyze_one(payloads[i])
+        results[i] = task(payloads[i])
         bar.update(1)
     if not remote:
         return results
     chunks = _chunks(remote, workers)
-    with ProcessPoolExecutor(max_workers=min(workers, len(chunks))) as pool:
-        futures = {pool.submit(_analyze_chunk, [payloads[i] for i in idx]): idx for idx in chunks}
+    here = versions()
+    pool = ProcessPoolExecutor(max_workers=min(workers, len(chunks)))
+    try:
+        futures = {pool.submit(_run_chunk, task, [payloads[i] for i in idx]): idx for idx in chunks}
         for fut in as_completed(futures):
             idx = futures[fut]
-            for i, res in zip(idx, fut.result(), strict=True):
-                results[i] = res
+            _place(results, idx, fut.result(), here, "a worker process")
             bar.update(len(idx))
+    except BaseException:
+        pool.shutdown(wait=True, cancel_futures=True)
+        raise
+    pool.shutdown(wait=True)
     return results
 
 
-def _run_dask(address: str, payloads: list[Any], bar: Any) -> list[Any]:
+def _run_dask(task: Callable[[Any], Any], address: str, payloads: list[Any], bar: Any) -> list:
     try:
         from dask.distributed import Client, as_completed
     except ImportError:
         raise BatchError(
             f"address = {address!r} asks for a Dask cluster, but dask.distributed is not "
-            "installed: install it (pip install 'dask[distributed]') or leave address out to "
+            "installed: install it (pip install 'phasepath[dask]') or leave address out to "
             "use processes on this machine"
         ) from None
     if any(not _portable(p) for p in payloads):
         raise BatchError(
-            "a route on a substance that cannot be rebuilt from its name cannot "
-            "be sent to a Dask cluster: analyse it without address"
+            "a route on a substance that cannot travel as data (neither a known name nor "
+            "built with Substance.from_data) cannot be sent to a Dask cluster: analyse it "
+            "without address"
         )
     try:
         client = Client(address)
     except Exception as exc:  # connection failures come in many library-specific types
         raise BatchError(f"cannot reach the Dask scheduler at {address!r}: {exc}") from None
     try:
-        n = max(1, len(client.scheduler_info().get("workers", {})))
-        chunks = _chunks(list(range(len(payloads))), n)
-        futures = client.map(
-            _analyze_chunk, [[payloads[i] for i in idx] for idx in chunks], pure=False
-        )
+        threads = max(1, sum(client.nthreads().values()))
+        chunks = _chunks(list(range(len(payloads))), threads)
+        here = versions()
+        futures = [
+            client.submit(_run_chunk, task, [payloads[i] for i in idx], pure=False)
+            for idx in chunks
+        ]
         where = {f.key: idx for f, idx in zip(futures, chunks, strict=True)}
         results: list[Any] = [None] * len(payloads)
         for fut in as_completed(futures):
             idx = where[fut.key]
-            for i, res in zip(idx, fut.result(), strict=True):
-                results[i] = res
+            _place(results, idx, fut.result(), here, f"a worker of the cluster at {address!r}")
             bar.update(len(idx))
         return results
     finally:
@@ -164,63 +217,104 @@ def _chunks(indices: list[int], workers: int) -> list[list[int]]:
     return [indices[k : k + size] for k in range(0, len(indices), size)]
 
 
-# -- one route ------------------------------------------------------------------------------------
-def _payload(route: Any) -> Any:
-    """What travels to a worker: the route's plain data, or the object itself if not a Route."""
-    from .route import Route
+def _run_chunk(task: Callable[[Any], Any], payloads: Sequence[Any]) -> tuple[dict, list]:
+    """What a worker runs: its versions, and the task's result for each route of the chunk."""
+    return versions(), [task(p) for p in payloads]
 
-    if isinstance(route, Route):
-        return route.to_dict()
-    return route
+
+def _place(
+    results: list[Any], idx: list[int], done: tuple[dict, list], here: dict, who: str
+) -> None:
+    there, values = done
+    if there != here:
+        raise BatchError(
+            f"{who} runs {_versions_text(there)}, this process {_versions_text(here)}: its "
+            "results could differ; install the same versions on every worker"
+        )
+    for i, value in zip(idx, values, strict=True):
+        results[i] = value
+
+
+@cache
+def _versions() -> tuple[tuple[str, str], ...]:
+    from importlib.metadata import PackageNotFoundError, version
+
+    out = [("phasepath", __version__)]
+    for dist in ("CoolProp", "numpy", "scipy"):
+        try:
+            out.append((dist, version(dist)))
+        except PackageNotFoundError:  # pragma: no cover - they are dependencies
+            out.append((dist, "not installed"))
+    return tuple(out)
+
+
+def versions() -> dict[str, str]:
+    """Versions of phasepath and of the libraries its numbers depend on, in this process."""
+    return dict(_versions())
+
+
+def _versions_text(v: dict[str, str]) -> str:
+    return ", ".join(f"{k} {val}" for k, val in v.items())
+
+
+# -- one route ------------------------------------------------------------------------------------
+def route_data(route: Any) -> Any:
+    """What travels to a worker: a route's plain data (:meth:`Route.to_dict`), its substance by
+    name or, for a substance built from data, by that data; anything else as it is."""
+    data = route.to_dict() if isinstance(route, Route) else route
+    if not isinstance(data, dict):
+        return data
+    sub = data.get("substance")
+    if sub is None or isinstance(sub, (str, Mapping)):
+        return data
+    try:
+        recipe = sub.to_dict()
+    except (AttributeError, PhasePathError):
+        return data
+    if len(recipe) > 1:  # the inputs it was built from, not just a name
+        return {**data, "substance": recipe}
+    return data
 
 
 def _portable(payload: Any) -> bool:
-    return not isinstance(payload, dict) or isinstance(payload.get("substance"), str)
-
-
-def _analyze_chunk(payloads: Sequence[Any]) -> list[Any]:
-    return [_analyze_one(p) for p in payloads]
+    return not isinstance(payload, dict) or isinstance(payload.get("substance"), (str, Mapping))
 
 
 def _analyze_one(payload: Any) -> tuple[str, Any]:
-    """("ok", (crossings, legs, notes)) or ("error", (class name, message)).
+    """("ok", (crossings, legs, notes, cautions)) or ("error", the error as plain data).
 
     Only phasepath errors count as a failed route; anything else is a defect and propagates.
     """
-    from .analysis import analyze
-    from .route import Route
-
     try:
-        if isinstance(payload, Route):
-            route = payload
-        elif isinstance(payload, dict):
-            route = Route.from_dict(payload)
-        else:
-            raise BatchError(
-                f"{payload!r} is not a route: give Route objects or Route.to_dict() data"
-            )
-        report = analyze(route)
+        report = build_route(payload).analyze()
     except PhasePathError as exc:
-        return "error", (type(exc).__name__, str(exc))
+        return "error", exc.plain()
+    return "ok", (report.crossings, report.legs, report.notes, report.cautions)
+
+
+def build_route(payload: Any) -> Route:
+    """The Route a payload stands for (a Route, or route data rebuilt and validated)."""
+    if isinstance(payload, Route):
+        return payload
+    if not isinstance(payload, dict):
+        raise BatchError(f"{payload!r} is not a route: give Route objects or Route.to_dict() data")
+    try:
+        return Route.from_dict(payload)
     except KeyError as exc:
-        return "error", ("RouteError", f"route data lacks the field {exc.args[0]!r}")
-    return "ok", (report.crossings, report.legs, report.notes)
+        raise RouteError(f"route data lacks the field {exc.args[0]!r}") from None
 
 
 def _assemble(items: list[Any], results: list[Any]) -> list[Report]:
-    from .report import Report
-    from .route import Route
-
     reports: list[Report | None] = []
     failures: dict[int, PhasePathError] = {}
     for i, (item, (status, value)) in enumerate(zip(items, results, strict=True)):
         if status == "error":
-            failures[i] = _rebuild_error(*value)
+            failures[i] = value
             reports.append(None)
             continue
-        crossings, legs, notes = value
+        crossings, legs, notes, cautions = value
         route = item if isinstance(item, Route) else Route.from_dict(item)
-        reports.append(Report(route, crossings, legs, notes))
+        reports.append(Report(route, crossings, legs, notes, cautions))
     if failures:
         lines = []
         for i, exc in failures.items():
@@ -231,24 +325,15 @@ def _assemble(items: list[Any], results: list[Any]) -> list[Report]:
             )
             name = f"route {i}" + (f" ({title!r})" if title else "")
             lines.append(f"{name}: {type(exc).__name__}: {exc}")
-        err = BatchError(f"{len(failures)} of {len(items)} routes failed:\n" + "\n".join(lines))
-        err.failures = failures
-        err.reports = reports
-        raise err
+        raise BatchError(
+            f"{len(failures)} of {len(items)} routes failed:\n" + "\n".join(lines),
+            failures=failures,
+            reports=reports,
+        )
     return reports  # type: ignore[return-value]
 
 
-def _rebuild_error(name: str, message: str) -> PhasePathError:
-    """The error class the worker raised, with its message."""
-    from . import errors
-
-    cls = getattr(errors, name, PhasePathError)
-    if not (isinstance(cls, type) and issubclass(cls, PhasePathError)):
-        cls = PhasePathError
-    return cls(message)
-
-
-def _progress_bar(total: int, enabled: bool) -> Any:
+def _progress_bar(total: int, enabled: bool, desc: str) -> Any:
     from tqdm.auto import tqdm
 
-    return tqdm(total=total, desc="analysing routes", unit="route", disable=not enabled)
+    return tqdm(total=total, desc=desc, unit="route", disable=not enabled)

@@ -97,7 +97,9 @@ class EOS:
                 f"p = {p!r} Pa is outside the vapor-pressure curve of {self.name}: "
                 f"{self.p_triple:.6g} Pa to {self.p_crit:.6g} Pa"
             )
-        return self._sat(CP.PQ_INPUTS, p, 0.0, "T")
+        T = self._sat(CP.PQ_INPUTS, p, 0.0, "T")
+        # the library's inverse can land a float step outside the curve at its ends
+        return min(max(T, self.T_triple), self.T_crit)
 
     def latent_heat_vaporization(self, T: float) -> float:
         """h'' - h' [J/kg] at T [K] on the vapor-pressure curve."""

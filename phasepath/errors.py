@@ -134,6 +134,11 @@ class PhasePathError(ValueError):
             err.value, err._has_value = self.value, False
         return err
 
+    def plain(self) -> PhasePathError:
+        """A copy of this error that carries its message (and its class's own data) but not the
+        value as typed, so that it can travel between processes."""
+        return type(self)._like(self, str(self))
+
     @classmethod
     def _like(cls, old: PhasePathError, detail: str) -> PhasePathError:
         """An error of this class with ``detail``, keeping what a subclass carries besides."""

@@ -83,17 +83,6 @@ def test_bad_worker_count(workers: object) -> None:
         pp.analyze_many(_sweep()[:1], workers=workers, progress=False)  # type: ignore[arg-type]
 
 
-def test_cluster_address_without_dask() -> None:
-    try:
-        import dask.distributed  # noqa: F401
-    except ImportError:
-        pass
-    else:  # pragma: no cover - only where Dask happens to be installed
-        pytest.skip("dask.distributed is installed here")
-    with pytest.raises(BatchError, match="dask.distributed is not installed"):
-        pp.analyze_many(_sweep()[:1], address="tcp://127.0.0.1:8786", progress=False)
-
-
 def test_progress_bar_shows(capsys: pytest.CaptureFixture[str]) -> None:
     pp.analyze_many(_sweep()[:2], progress=True)
     assert "analysing routes" in capsys.readouterr().err
