@@ -28,13 +28,12 @@ from __future__ import annotations
 import math
 from collections.abc import Callable, Iterable, Mapping, Sequence
 from functools import cache
-from typing import TYPE_CHECKING, Any
+from typing import Any
 
 from .errors import BatchError, PhasePathError, RouteError
 from .report import Report
 from .route import Route
 from .version import __version__
-
 
 __all__ = ["analyze_many", "map_routes", "route_data", "build_route", "versions"]
 

@@ -8,10 +8,10 @@ import html
 import re
 import subprocess
 import sys
-import tomllib
 from pathlib import Path
 
 import pytest
+import tomllib
 
 import phasepath as pp
 from phasepath import cli
