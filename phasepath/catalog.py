@@ -133,6 +133,13 @@ def _unknown(name: object) -> UnknownSubstanceError:
 def from_data(name: str, **data: Any) -> Substance:
     """A substance built from data (:func:`phasepath.datasheet.from_data`), registered by name
     so that :func:`substance` and everything that takes a name finds it."""
+    unknown = [k for k in data if k not in datasheet.KEYS]
+    if unknown:
+        raise PhasePathError(
+            f"{shown(name)}: unknown input(s) {', '.join(map(repr, unknown))} for a substance "
+            f"built from data; known: {', '.join(datasheet.KEYS)}",
+            value=unknown[0],
+        )
     sub = datasheet.from_data(name, **data)
     if _key(sub.name) not in _alias_map():  # a reference substance keeps its name
         _REGISTRY[sub.name] = sub

@@ -11,7 +11,7 @@ from __future__ import annotations
 import math
 from collections.abc import Sequence
 
-from ..errors import NonFiniteError, OutOfRangeError
+from ._checks import in_range
 
 #: Unit pressures the sources write their equations in [Pa].
 TORR = 101325.0 / 760.0  # mmHg (1 atm = 760 Torr exactly, common practice)
@@ -23,17 +23,7 @@ KGF_CM2 = 98066.5  # kgf/cm2 (standard gravity 9.80665 m/s2, common practice)
 
 def checked_T(T: float, lo: float, hi: float, what: str, source: str) -> float:
     """T as a float, or an error naming the value and the range ``lo`` to ``hi`` [K]."""
-    try:
-        x = float(T)
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"T = {T!r} is not a number") from None
-    if not math.isfinite(x):
-        raise NonFiniteError(f"T = {T!r} is not a finite number")
-    if not lo <= x <= hi:
-        raise OutOfRangeError(
-            f"T = {T!r} K is outside the {what} ({source}): {lo:.6g} K to {hi:.6g} K"
-        )
-    return x
+    return in_range("T", T, lo, hi, "K", f"{what} ({source})", digits=".6g")
 
 
 def inverse_power_series(T: float, p_ref: float, A: Sequence[float]) -> tuple[float, float]:

@@ -24,8 +24,8 @@ from __future__ import annotations
 import math
 from functools import lru_cache
 
-from ..errors import NonFiniteError, OutOfRangeError
 from ..rootfind import find_root
+from ._checks import in_range
 
 __all__ = [
     "SOURCE_CURVES",
@@ -95,30 +95,8 @@ SOLID_P_MAX = 500.0e6
 FUSION_T_MAX = _temperature_at_melting_pressure(SOLID_P_MAX)
 
 
-def _finite(name: str, value: float) -> float:
-    try:
-        x = float(value)
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"{name} = {value!r} is not a number") from None
-    if not math.isfinite(x):
-        raise NonFiniteError(f"{name} = {value!r} is not a finite number")
-    return x
-
-
-def _in_range(
-    name: str, value: float, lo: float, hi: float, unit: str, what: str, open_low: bool = False
-) -> float:
-    x = _finite(name, value)
-    if (x <= lo if open_low else x < lo) or x > hi:
-        low = f"above {lo:g} {unit}" if open_low else f"{lo:g} {unit}"
-        raise OutOfRangeError(
-            f"{name} = {value!r} {unit} is outside the {what}: {low} to {hi:g} {unit}"
-        )
-    return x
-
-
 def _check_sub_T(T: float) -> float:
-    return _in_range(
+    return in_range(
         "T",
         T,
         SUBLIMATION_T_MIN,
@@ -129,7 +107,7 @@ def _check_sub_T(T: float) -> float:
 
 
 def _check_melt_T(T: float) -> float:
-    return _in_range(
+    return in_range(
         "T", T, T_TRIPLE, MELTING_T_MAX, "K", "CO2 melting curve (Span & Wagner 1996 eq. 3.10)"
     )
 
@@ -237,7 +215,7 @@ def sublimation_temperature_co2(p: float) -> float:
     True
     """
     p_min = sublimation_pressure_co2(SUBLIMATION_T_MIN)
-    p = _in_range(
+    p = in_range(
         "p", p, p_min, P_TRIPLE, "Pa", "CO2 sublimation curve (Span & Wagner 1996 eq. 3.12)"
     )
     if p == P_TRIPLE:
@@ -329,9 +307,7 @@ def melting_temperature_co2(p: float) -> float:
     >>> round(melting_temperature_co2(melting_pressure_co2(250.0)), 9)
     250.0
     """
-    p = _in_range(
-        "p", p, P_TRIPLE, 800.0e6, "Pa", "CO2 melting curve (Span & Wagner 1996 eq. 3.10)"
-    )
+    p = in_range("p", p, P_TRIPLE, 800.0e6, "Pa", "CO2 melting curve (Span & Wagner 1996 eq. 3.10)")
     return _temperature_at_melting_pressure(p)
 
 
@@ -438,7 +414,7 @@ def _js_terms(T: float, p: float) -> tuple[float, float, float, float]:
 
 
 def _check_solid(T: float, p: float) -> tuple[float, float]:
-    T = _in_range(
+    T = in_range(
         "T",
         T,
         SOLID_T_MIN,
@@ -446,7 +422,7 @@ def _check_solid(T: float, p: float) -> tuple[float, float]:
         "K",
         "range of the solid CO2 equation of state (Jäger & Span 2012)",
     )
-    p = _in_range(
+    p = in_range(
         "p",
         p,
         0.0,
@@ -652,7 +628,7 @@ def latent_heat_sublimation_co2(T: float, v_vapour: float) -> float:
     25.8
     """
     T = _check_sub_T(T)
-    v_vapour = _in_range(
+    v_vapour = in_range(
         "v_vapour", v_vapour, 0.0, math.inf, "m3/kg", "range of specific volumes", open_low=True
     )
     p = sublimation_pressure_co2(T)
@@ -693,7 +669,7 @@ def latent_heat_fusion_co2(T: float, v_liquid: float) -> float:
     >>> abs(L * MOLAR_MASS / 8875.0 - 1) < 0.015
     True
     """
-    T = _in_range(
+    T = in_range(
         "T",
         T,
         T_TRIPLE,
@@ -701,7 +677,7 @@ def latent_heat_fusion_co2(T: float, v_liquid: float) -> float:
         "K",
         "CO2 melting curve covered by the solid equation of state",
     )
-    v_liquid = _in_range(
+    v_liquid = in_range(
         "v_liquid", v_liquid, 0.0, math.inf, "m3/kg", "range of specific volumes", open_low=True
     )
     p = melting_pressure_co2(T)

@@ -36,9 +36,7 @@ Follow local codes and licensed practice; these functions are design aids, not a
 
 from __future__ import annotations
 
-import math
-
-from ..errors import NonFiniteError, OutOfRangeError
+from ._checks import in_range
 from ._forms import KGF_CM2, checked_T, simon_absolute, simon_absolute_inverse
 
 __all__ = [
@@ -138,16 +136,7 @@ def melting_temperature_helium4_mills_grilly(p: float) -> float:
     >>> round(melting_temperature_helium4_mills_grilly(10.0e6), 4)
     3.4675
     """
-    try:
-        x = float(p)
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"p = {p!r} is not a number") from None
-    if not math.isfinite(x):
-        raise NonFiniteError(f"p = {p!r} is not a finite number")
     lo, hi = 37.0 * KGF_CM2, 3500.0 * KGF_CM2
-    if not lo <= x <= hi:
-        raise OutOfRangeError(
-            f"p = {p!r} Pa is outside the helium-4 melting curve (Mills & Grilly 1955): "
-            f"{lo:.6g} Pa to {hi:.6g} Pa"
-        )
+    what = "helium-4 melting curve (Mills & Grilly 1955)"
+    x = in_range("p", p, lo, hi, "Pa", what, digits=".6g")
     return simon_absolute_inverse(x, *_MG)

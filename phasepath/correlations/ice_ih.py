@@ -24,10 +24,9 @@ licensed practice.
 from __future__ import annotations
 
 import cmath
-import math
 from functools import lru_cache
 
-from ..errors import NonFiniteError, OutOfRangeError
+from ._checks import in_range, number
 
 __all__ = [
     "SOURCE",
@@ -69,25 +68,11 @@ _R2 = (
 
 
 def _check(T: float, p: float) -> tuple[float, float]:
-    out = []
-    for name, value in (("T", T), ("p", p)):
-        try:
-            x = float(value)
-        except (TypeError, ValueError):
-            raise NonFiniteError(f"{name} = {value!r} is not a number") from None
-        if not math.isfinite(x):
-            raise NonFiniteError(f"{name} = {value!r} is not a finite number")
-        out.append(x)
-    T, p = out
-    if not 0.0 < T <= T_TRIPLE:
-        raise OutOfRangeError(
-            f"T = {T!r} K is outside the range of ice Ih (IAPWS R10-06): above 0 K to 273.16 K"
-        )
-    if not 0.0 < p <= P_MAX:
-        raise OutOfRangeError(
-            f"p = {p!r} Pa is outside the range of ice Ih (IAPWS R10-06): above 0 Pa to 210 MPa"
-        )
-    return T, p
+    what = "range of ice Ih (IAPWS R10-06)"
+    return (
+        in_range("T", T, 0.0, T_TRIPLE, "K", what, open_low=True),
+        in_range("p", p, 0.0, P_MAX, "Pa", what, open_low=True),
+    )
 
 
 def _bracket(t: complex, tau: float) -> complex:
@@ -311,12 +296,7 @@ def latent_heat_melting_ice_ih(T: float, p: float, h_liquid: float) -> float:
     333.44
     """
     T, p = _check(T, p)
-    try:
-        h = float(h_liquid)
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"h_liquid = {h_liquid!r} is not a number") from None
-    if not math.isfinite(h):
-        raise NonFiniteError(f"h_liquid = {h_liquid!r} is not a finite number")
+    h = number("h_liquid", h_liquid)
     return h - enthalpy_ice_ih(T, p)
 
 
@@ -346,10 +326,5 @@ def latent_heat_sublimation_ice_ih(T: float, p: float, h_vapour: float) -> float
     2834.36
     """
     T, p = _check(T, p)
-    try:
-        h = float(h_vapour)
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"h_vapour = {h_vapour!r} is not a number") from None
-    if not math.isfinite(h):
-        raise NonFiniteError(f"h_vapour = {h_vapour!r} is not a finite number")
+    h = number("h_vapour", h_vapour)
     return h - enthalpy_ice_ih(T, p)

@@ -36,7 +36,7 @@ from __future__ import annotations
 
 import math
 
-from ..errors import NonFiniteError, OutOfRangeError
+from ._checks import in_range
 
 __all__ = [
     "CURVES",
@@ -58,18 +58,7 @@ CURVES: dict[str, tuple[float, float, float, tuple[float, ...], tuple[float, ...
 
 def _check_T(name: str, T: float) -> float:
     Tt, _, Tmin, _, _, source = CURVES[name]
-    try:
-        x = float(T)
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"T = {T!r} is not a number") from None
-    if not math.isfinite(x):
-        raise NonFiniteError(f"T = {T!r} is not a finite number")
-    if not Tmin <= x <= Tt:
-        raise OutOfRangeError(
-            f"T = {T!r} K is outside the {name} sublimation curve ({source}): "
-            f"{Tmin:g} K to {Tt:g} K"
-        )
-    return x
+    return in_range("T", T, Tmin, Tt, "K", f"{name} sublimation curve ({source})")
 
 
 def _pressure(name: str, T: float) -> float:

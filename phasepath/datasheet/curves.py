@@ -135,6 +135,17 @@ def _wagner(d: object, critical: tuple[float, float] | None) -> DataCurve:
     hi = I.temperature(w["T_max"], "wagner T_max") if w.get("T_max") is not None else T_c
     hi = min(hi, T_c)
     func = vp.wagner_3_6 if form == "3-6" else vp.wagner_25_5
+    powers = (1.0, 1.5, 3.0, 6.0) if form == "3-6" else (1.0, 1.5, 2.5, 5.0)
+
+    def ln_ratio(T: float) -> float:  # ln(p/p_c) of the Wagner form
+        tau = 1.0 - min(T, T_c) / T_c
+        return T_c / T * sum(k * tau**n for k, n in zip(coef, powers, strict=True))
+
+    _fits_in_floats(
+        "wagner",
+        dict(zip("abcd", coef, strict=True)),
+        [(T, ln_ratio(T) + math.log(p_c)) for T in (lo, hi)],
+    )
 
     def f(T: float) -> float:
         return func(min(T, T_c), T_c, p_c, *coef)
@@ -164,8 +175,17 @@ def _antoine(d: object) -> DataCurve:
             f"equation (T + C <= 0 with C = {C:g} K)"
         )
 
+    def exponent(T: float) -> float:
+        return A - B / max(T + C, 1e-3 * (lo + C))
+
+    _fits_in_floats(
+        "antoine",
+        {"A": A, "B": B, "C": C},
+        [(T, exponent(T) * math.log(base)) for T in (lo, hi)],
+    )
+
     def f(T: float) -> float:
-        return base ** (A - B / max(T + C, 1e-3 * (lo + C)))
+        return base ** exponent(T)
 
     return DataCurve(
         f,
@@ -174,6 +194,21 @@ def _antoine(d: object) -> DataCurve:
         f"Antoine equation log{'10' if base == 10 else f'[{base:g}]'}(p/Pa) = "
         f"{A:.6g} - {B:.6g}/(T/K {signed(C)}), published range {lo:g} K to {hi:g} K.",
     )
+
+
+def _fits_in_floats(
+    what: str, coefficients: dict[str, float], ln_p: list[tuple[float, float]]
+) -> None:
+    """Refuse coefficients whose pressure (ln p at the given temperatures) no float can hold:
+    they are wrong, or in other units than Pa and K."""
+    for T, y in ln_p:
+        if not (math.isfinite(y) and -690.0 < y < 700.0):
+            shown = ", ".join(f"{k} = {v:g}" for k, v in coefficients.items())
+            raise OutOfRangeError(
+                f"{what}: the coefficients ({shown}) give a vapor pressure of e^{y:.4g} Pa at "
+                f"{T:g} K, beyond any pressure: check them and their units (p in Pa, T in K)",
+                value=coefficients,
+            )
 
 
 def _fitted(
