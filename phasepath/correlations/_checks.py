@@ -13,7 +13,7 @@ from __future__ import annotations
 
 import math
 
-from ..errors import NonFiniteError, OutOfRangeError
+from ..errors import NonFiniteError, OutOfRangeError, shown
 
 __all__ = ["number", "in_range"]
 
@@ -22,10 +22,14 @@ def number(name: str, value: object) -> float:
     """``value`` as a finite float, or an error naming it."""
     try:
         x = float(value)  # type: ignore[arg-type]
-    except (TypeError, ValueError, OverflowError):
-        raise NonFiniteError(f"{name} = {value!r} is not a number", value=value) from None
+    except OverflowError:
+        raise NonFiniteError(
+            f"{name} = {shown(value)} is too large to be a number", value=value
+        ) from None
+    except (TypeError, ValueError):
+        raise NonFiniteError(f"{name} = {shown(value)} is not a number", value=value) from None
     if not math.isfinite(x):
-        raise NonFiniteError(f"{name} = {value!r} is not a finite number", value=value)
+        raise NonFiniteError(f"{name} = {shown(value)} is not a finite number", value=value)
     return x
 
 
@@ -45,7 +49,7 @@ def in_range(
     if (x <= lo if open_low else x < lo) or x > hi:
         low = f"above {lo:{digits}} {unit}" if open_low else f"{lo:{digits}} {unit}"
         raise OutOfRangeError(
-            f"{name} = {value!r} {unit} is outside the {what}: {low} to {hi:{digits}} {unit}",
+            f"{name} = {shown(value)} {unit} is outside the {what}: {low} to {hi:{digits}} {unit}",
             value=value,
         )
     return x

@@ -7,8 +7,11 @@
 from __future__ import annotations
 
 import math
+import numbers
+from decimal import Decimal
 
-from ..errors import NonFiniteError, OutOfRangeError
+from ..errors import NonFiniteError, shown
+from ._checks import in_range
 
 __all__ = ["ambient_pressure", "SOURCE", "ELEVATION_RANGE"]
 
@@ -44,14 +47,13 @@ def ambient_pressure(elevation: float) -> float:
     >>> round(ambient_pressure(1000.0)), round(ambient_pressure(5000.0))
     (89876, 54048)
     """
-    if not isinstance(elevation, (int, float)) or not math.isfinite(elevation):
-        raise NonFiniteError(f"elevation {elevation!r} is not a finite number of metres")
     lo, hi = ELEVATION_RANGE
-    if not lo <= elevation <= hi:
-        raise OutOfRangeError(
-            f"elevation {elevation!r} m is outside the standard atmosphere used here: "
-            f"{lo:g} m to {hi:g} m"
+    if isinstance(elevation, bool) or not isinstance(elevation, (numbers.Real, Decimal)):
+        raise NonFiniteError(
+            f"elevation {shown(elevation)} is not a number of metres ({lo:g} m to {hi:g} m)",
+            value=elevation,
         )
+    elevation = in_range("elevation", elevation, lo, hi, "m", "standard atmosphere used here")
     H = _R_EARTH * elevation / (_R_EARTH + elevation)
     expo = _G0 * _M / (_R * _L)
     if H <= _H1:
