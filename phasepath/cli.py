@@ -26,7 +26,7 @@ import math
 import sys
 from collections.abc import Sequence
 from pathlib import Path
-from typing import NoReturn
+from typing import Any, NoReturn
 
 from . import comparison, fileio, plot, results, tables
 from .catalog import substance
@@ -315,15 +315,9 @@ def _check(args: argparse.Namespace) -> int:
         print(f"  ! VERSION {name}: expected file from {old}, this run {new} ({why})")
     for d in diffs:
         print("  " + comparison.describe(d, units, tol))
-    n_x, n_l = len(expected["crossings"]), len(expected["legs"])
-    what = _counted(n_x, "crossing") + (
-        f" and {_counted(n_l, 'leg')}" if args.only != ("crossings",) else ""
-    )
+    what = _counts(expected, args.only)
     if diffs:
-        found = (
-            f"{_counted(len(actual['crossings']), 'crossing')} and "
-            f"{_counted(len(actual['legs']), 'leg')} found"
-        )
+        found = f"{_counts(actual, args.only)} found"
         cause = ""
         if versions:
             changed = ", ".join(f"{n} {o} -> {w}" for n, o, w in versions)
@@ -332,8 +326,8 @@ def _check(args: argparse.Namespace) -> int:
         print(f"FAILED: {summary} ({what} expected, {found}){cause}")
         print(f"phasepath check FAILED for {args.route}: {summary}{cause}", file=sys.stderr)
         return 1
-    if args.only == ("crossings",):
-        print(f"OK: all {n_x} crossings match within the tolerances")
+    if tuple(args.only) == ("crossings",):
+        print(f"OK: all {what} match within the tolerances")
     else:
         print(f"OK: {what} match within the tolerances")
     return 0
@@ -341,6 +335,15 @@ def _check(args: argparse.Namespace) -> int:
 
 def _counted(n: int, noun: str) -> str:
     return f"{n} {noun}{'s' if n != 1 else ''}"
+
+
+def _counts(doc: dict[str, Any], only: Sequence[str]) -> str:
+    """Counts in words, e.g. 3 crossings and 2 legs (the crossings alone when only they are
+    compared)."""
+    text = _counted(len(doc["crossings"]), "crossing")
+    if tuple(only) != ("crossings",):
+        text += f" and {_counted(len(doc['legs']), 'leg')}"
+    return text
 
 
 def _diff(args: argparse.Namespace) -> int:
