@@ -465,8 +465,8 @@ class Comparison:
     def text(self, units: DisplayUnits | None = None) -> str:
         """The comparison as text: the two plans, the tolerances, the differences, a verdict."""
         out = [
-            f"phasepath diff: {self.labels[0]} = {self.title(0)}",
-            f"                {self.labels[1]} = {self.title(1)}",
+            f"{self.labels[0]}: {self.title(0)}",
+            f"{self.labels[1]}: {self.title(1)}",
             f"tolerances: {self.tolerances.describe()}",
             f"compared: {', '.join(self.only)}",
         ]
