@@ -226,7 +226,7 @@ def test_report_without_figures_needs_no_matplotlib(report) -> None:
     assert "<svg" not in page and "Crossings" in page
 
 
-# -- figures -----------------------------------------------------------------------------------------
+# -- figures -----------------------------------------------------------------------------------
 def test_figures_are_reproducible_and_labelled(report) -> None:
     sub = report.substance
     a = plot.diagram_bytes(sub, "svg", report.route, report)
