@@ -33,14 +33,13 @@ True
 
 from __future__ import annotations
 
-import html
 import math
 from collections.abc import Callable, Iterable, Sequence
 from dataclasses import dataclass
 from datetime import datetime
 from typing import TYPE_CHECKING, Any
 
-from . import fileio, htmlreport, plot, results, tables
+from . import fileio, htmlreport, results, tables
 from . import format as F
 from .errors import PhasePathError
 from .format import UNIT_LABELS, DisplayUnits
@@ -444,6 +443,13 @@ class Comparison:
             compare_documents(self.document_a, self.document_b, tolerances, only)
         )
 
+    #: The columns of the differences table (over the rows of :meth:`rows`).
+    columns: tuple[tables.Column, ...] = ()
+
+    def summary(self) -> str:
+        """The differences counted by kind ("2 moved, 1 appeared"; empty when they agree)."""
+        return summary(self.differences)
+
     @property
     def agree(self) -> bool:
         """True when no difference goes beyond the tolerances."""
@@ -497,7 +503,7 @@ class Comparison:
     def to_html(self, units: DisplayUnits | None = None, *, when: datetime | None = None) -> str:
         """The side-by-side report: both plans on one diagram in two styles, the differences,
         and each plan's crossings and legs (one self-contained HTML file, no network)."""
-        return _comparison_html(self, units or htmlreport.DEFAULT_UNITS, when)
+        return htmlreport.comparison_html(self, units or htmlreport.DEFAULT_UNITS, when)
 
     def save_html(
         self, path: object, units: DisplayUnits | None = None, *, when: datetime | None = None
@@ -507,7 +513,8 @@ class Comparison:
 
     def _repr_html_(self) -> str:
         units = htmlreport.DEFAULT_UNITS
-        return "<div class='phasepath-comparison'>" + _differences_html(self, units) + "</div>"
+        body = htmlreport.differences_html(self, units)
+        return "<div class='phasepath-comparison'>" + body + "</div>"
 
 
 def _row(d: Difference, units: DisplayUnits, tol: Tolerances) -> dict[str, str]:
@@ -573,6 +580,9 @@ DIFFERENCES: tuple[tables.Column, ...] = (
 )
 
 
+Comparison.columns = DIFFERENCES
+
+
 def compare(
     a: Route | Report,
     b: Route | Report,
@@ -603,78 +613,3 @@ def _report(x: Any, name: str) -> Report:
     if hasattr(x, "analyze") and hasattr(x, "corners"):
         return x.analyze()  # type: ignore[no-any-return]
     raise PhasePathError(f"{type(x).__name__} is not a Route or a Report", field=name)
-
-
-# -- HTML ------------------------------------------------------------------------------------------
-def _differences_html(cmp: Comparison, units: DisplayUnits) -> str:
-    if not cmp.differences:
-        return (
-            "<p class='pp-agree'>The plans agree within the tolerances "
-            f"({html.escape(cmp.tolerances.describe())}).</p>"
-        )
-    rows = cmp.rows(units)
-    table = tables.html_table(
-        DIFFERENCES,
-        rows,
-        units,
-        table_class="pp-diffs",
-        row_data=lambda r: {"status": r["status"]},
-    )
-    return (
-        f"<p class='pp-differ'>{len(rows)} difference{'s' if len(rows) != 1 else ''} "
-        f"({html.escape(summary(cmp.differences))}) beyond the tolerances "
-        f"({html.escape(cmp.tolerances.describe())}). Sign: ~ moved or changed, "
-        f"+ only in {html.escape(cmp.labels[1])}, - only in {html.escape(cmp.labels[0])}.</p>"
-        + table
-    )
-
-
-def _comparison_html(cmp: Comparison, units: DisplayUnits, when: datetime | None) -> str:
-    a, b = cmp.report_a, cmp.report_b
-    la, lb = cmp.labels
-    title = f"{cmp.title(0)} vs {cmp.title(1)}"
-    figure = htmlreport.figure_html(
-        lambda: plot.comparison_bytes(
-            [(f"{la}: {cmp.title(0)}", a.route, a), (f"{lb}: {cmp.title(1)}", b.route, b)],
-            "svg",
-            units,
-            title=f"{la} and {lb} on the {a.substance.name} phase diagram",
-        ),
-        "fig-compare",
-        f"{la} (solid line, diamonds) and {lb} (dashed line, circles) on one diagram.",
-        "pp-wide",
-    )
-    sides = []
-    for label, rep in ((la, a), (lb, b)):
-        sides.append(
-            "<div class='pp-side'>"
-            f"<h2>{html.escape(label)}: {html.escape(rep.route.title or rep.substance.name)}</h2>"
-            + htmlreport.facts_html(rep, units)
-            + htmlreport.tables_html(rep, units, level=3)
-            + htmlreport.hazards_html(rep, level=3)
-            + "</div>"
-        )
-    body = (
-        htmlreport.header_html(title, f"Plan comparison: {a.substance.name}")
-        + figure
-        + "<section class='pp-keep'><h2>What differs</h2>"
-        + _differences_html(cmp, units)
-        + "</section>"
-        + "<div class='pp-sides'>"
-        + "".join(sides)
-        + "</div>"
-        + htmlreport.provenance_html(
-            [
-                (
-                    f"{la}: {htmlreport.route_digest(a.route)[0]}",
-                    htmlreport.route_digest(a.route)[1],
-                ),
-                (
-                    f"{lb}: {htmlreport.route_digest(b.route)[0]}",
-                    htmlreport.route_digest(b.route)[1],
-                ),
-            ],
-            when,
-        )
-    )
-    return htmlreport.page(title, body)

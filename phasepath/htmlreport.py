@@ -12,7 +12,7 @@ the diagram and the tables on the first page, tables not split across pages.
 Numbers follow the display-precision policy (:mod:`phasepath.format`). Nothing on the page is
 loaded from elsewhere: no scripts, no fonts, no images by address; the figures are inline SVG.
 The page's building blocks (:func:`page`, :func:`figure_html`, :func:`tables_html`, ...) also
-make the plan comparison's page (:mod:`phasepath.comparison`).
+make the plan comparison's page (:func:`comparison_html`, for :mod:`phasepath.comparison`).
 
 >>> import phasepath as pp, datetime
 >>> rep = pp.Route("water", T="20 degC", p="1 atm", title="Kettle").isobar(T="120 degC").analyze()
@@ -46,6 +46,8 @@ if TYPE_CHECKING:  # pragma: no cover
 
 __all__ = [
     "report_html",
+    "comparison_html",
+    "differences_html",
     "page",
     "header_html",
     "figure_html",
@@ -410,3 +412,67 @@ def report_html(
         + provenance_html([digest], when)
     )
     return page(heading, body)
+
+
+# -- the plan comparison -------------------------------------------------------------------------
+def differences_html(cmp: Any, units: DisplayUnits) -> str:
+    """The table of differences of a :class:`phasepath.comparison.Comparison` (or the word that
+    the plans agree)."""
+    tol = html.escape(cmp.tolerances.describe())
+    if not cmp.differences:
+        return f"<p class='pp-agree'>The plans agree within the tolerances ({tol}).</p>"
+    rows = cmp.rows(units)
+    table = tables.html_table(
+        cmp.columns, rows, units, table_class="pp-diffs", row_data=lambda r: {"status": r["status"]}
+    )
+    la, lb = (html.escape(x) for x in cmp.labels)
+    n = len(rows)
+    return (
+        f"<p class='pp-differ'>{n} difference{'s' if n != 1 else ''} "
+        f"({html.escape(cmp.summary())}) beyond the tolerances ({tol}). Sign: ~ moved or "
+        f"changed, + only in {lb}, - only in {la}.</p>" + table
+    )
+
+
+def comparison_html(cmp: Any, units: DisplayUnits, when: datetime | None = None) -> str:
+    """The side-by-side page of a comparison: both plans on one diagram in two styles, the
+    differences, and each plan's facts, tables, flags and cautions."""
+    a, b = cmp.report_a, cmp.report_b
+    la, lb = cmp.labels
+    title = f"{cmp.title(0)} vs {cmp.title(1)}"
+    figure = figure_html(
+        lambda: plot.comparison_bytes(
+            [(f"{la}: {cmp.title(0)}", a.route, a), (f"{lb}: {cmp.title(1)}", b.route, b)],
+            "svg",
+            units,
+            title=f"{la} and {lb} on the {a.substance.name} phase diagram",
+        ),
+        "fig-compare",
+        f"{la} (solid line, diamonds) and {lb} (dashed line, circles) on one diagram.",
+        "pp-wide",
+    )
+    sides = []
+    for label, rep in ((la, a), (lb, b)):
+        sides.append(
+            "<div class='pp-side'>"
+            f"<h2>{html.escape(label)}: {html.escape(rep.route.title or rep.substance.name)}</h2>"
+            + facts_html(rep, units)
+            + tables_html(rep, units, level=3)
+            + hazards_html(rep, level=3)
+            + "</div>"
+        )
+    digests = []
+    for label, rep in ((la, a), (lb, b)):
+        what, digest = route_digest(rep.route)
+        digests.append((f"{label}: {what}", digest))
+    body = (
+        header_html(title, f"Plan comparison: {a.substance.name}")
+        + figure
+        + "<section class='pp-keep'><h2>What differs</h2>"
+        + differences_html(cmp, units)
+        + "</section><div class='pp-sides'>"
+        + "".join(sides)
+        + "</div>"
+        + provenance_html(digests, when)
+    )
+    return page(title, body)
