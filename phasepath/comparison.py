@@ -338,10 +338,17 @@ def _change(a: float, b: float, quantity: str, units: DisplayUnits) -> str:
 
 
 def _moved(
-    name: str, a: float, b: float, quantity: str, key: str, tol: Tolerances, units: DisplayUnits
+    name: str,
+    a: float,
+    b: float,
+    quantity: str,
+    key: str,
+    tol: Tolerances,
+    units: DisplayUnits,
+    sep: str = " ",
 ) -> str:
     return (
-        f"{name} {_shown(a, quantity, units)} -> {_shown(b, quantity, units)}"
+        f"{name}{sep}{_shown(a, quantity, units)} -> {_shown(b, quantity, units)}"
         f"{_unit(quantity, units)} (change {_change(a, b, quantity, units)}; tol {tol.text(key)})"
     )
 
@@ -399,8 +406,8 @@ def describe(
     if d.status == "moved":
         assert d.quantity is not None
         return f"{head} {where} " + _moved(
-            d.field, d.a, d.b, d.quantity, d.tolerance, tol, units
-        ).replace(f"{d.field} ", f"{d.field}: ", 1)
+            d.field, d.a, d.b, d.quantity, d.tolerance, tol, units, sep=": "
+        )
     unit = _unit(d.quantity, units) if d.a is not None and d.b is not None else ""
     return (
         f"{head} {where} {d.field}: {_shown(d.a, d.quantity, units)} -> "
@@ -409,7 +416,7 @@ def describe(
 
 
 def summary(differences: Sequence[Difference]) -> str:
-    """ "2 moved, 1 appeared" (empty when there is no difference)."""
+    """The differences counted by kind, e.g. 2 moved, 1 appeared (empty when there is none)."""
     counts: dict[str, int] = {}
     for d in differences:
         counts[d.status] = counts.get(d.status, 0) + 1
