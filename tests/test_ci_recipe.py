@@ -29,8 +29,9 @@ def _lines() -> list[str]:
 def _run(line: str, cwd: Path) -> subprocess.CompletedProcess[str]:
     env = dict(os.environ)
     env["PATH"] = str(Path(sys.executable).parent) + os.pathsep + env.get("PATH", "")
-    return subprocess.run(["bash", "-c", line], cwd=cwd, env=env, capture_output=True,
-                          text=True, timeout=600)
+    return subprocess.run(
+        ["bash", "-c", line], cwd=cwd, env=env, capture_output=True, text=True, timeout=600
+    )
 
 
 def test_the_readme_shows_the_recipe_as_tested() -> None:

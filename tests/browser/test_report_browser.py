@@ -28,9 +28,16 @@ PLAN = (
 )
 VAPOR_RGB = (0x0B, 0x5F, 0xA5)  # the vapor-pressure curve (phasepath.plot.STYLE)
 CROSSING_RGB = (0xF2, 0xB0, 0x1E)  # the crossing diamonds (phasepath.plot.PLAN_STYLES[0])
-CHROMIUM_ARGS = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic",
-                 "--no-first-run", "--disable-background-networking",
-                 "--disable-component-update", "--disable-sync"]
+CHROMIUM_ARGS = [
+    "--headless",
+    "--no-sandbox",
+    "--disable-gpu",
+    "--disable-quic",
+    "--no-first-run",
+    "--disable-background-networking",
+    "--disable-component-update",
+    "--disable-sync",
+]
 
 
 def _count_colour(png, rgb, tol=40, top=1.0):
@@ -60,8 +67,10 @@ def test_report_offline_screenshot_and_pdf(report_file, chromium_path, artifacts
 
     pdftoppm, pdftotext = shutil.which("pdftoppm"), shutil.which("pdftotext")
     if pdftoppm is None or pdftotext is None:
-        pytest.skip("poppler-utils is not installed (apt-get install -y poppler-utils); "
-                    "scripts/setup.sh installs it")
+        pytest.skip(
+            "poppler-utils is not installed (apt-get install -y poppler-utils); "
+            "scripts/setup.sh installs it"
+        )
     url = report_file.as_uri()
     refused: list[str] = []
 
@@ -97,11 +106,31 @@ def test_report_offline_screenshot_and_pdf(report_file, chromium_path, artifacts
 
     for size, pdf in pdfs.items():
         stem = artifacts / f"report-{size}-page1"
-        subprocess.run([pdftoppm, "-f", "1", "-l", "1", "-r", "90", "-png", "-singlefile",
-                        str(pdf), str(stem)], check=True, timeout=120)
+        subprocess.run(
+            [
+                pdftoppm,
+                "-f",
+                "1",
+                "-l",
+                "1",
+                "-r",
+                "90",
+                "-png",
+                "-singlefile",
+                str(pdf),
+                str(stem),
+            ],
+            check=True,
+            timeout=120,
+        )
         png = stem.with_suffix(".png")
-        text = subprocess.run([pdftotext, "-f", "1", "-l", "1", "-layout", str(pdf), "-"],
-                              check=True, capture_output=True, text=True, timeout=120).stdout
+        text = subprocess.run(
+            [pdftotext, "-f", "1", "-l", "1", "-layout", str(pdf), "-"],
+            check=True,
+            capture_output=True,
+            text=True,
+            timeout=120,
+        ).stdout
         # the diagram: its title, axes and labels are text in the inline SVG
         for words in ("triple point", "critical point", "temperature [°C]", "pressure [bar]"):
             assert words in text, (size, words)
@@ -109,7 +138,15 @@ def test_report_offline_screenshot_and_pdf(report_file, chromium_path, artifacts
         assert _count_colour(png, VAPOR_RGB, top=0.5) > 150, size
         assert _count_colour(png, CROSSING_RGB, top=0.5) > 30, size
         # the tables, on the same first page
-        for words in ("Crossings", "Legs", "latent heat [kJ/kg]", "phase end", "condensation",
-                      "deposition", "isenthalp", "solid+vapor"):
+        for words in (
+            "Crossings",
+            "Legs",
+            "latent heat [kJ/kg]",
+            "phase end",
+            "condensation",
+            "deposition",
+            "isenthalp",
+            "solid+vapor",
+        ):
             assert words in text, (size, words)
         assert "EX-2 plan A" in text
