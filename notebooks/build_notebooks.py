@@ -480,6 +480,104 @@ Use such a diagram for planning and review, not for design margins; confirm the 
 measurements or a reference equation of state, and follow local codes and licensed practice."""),
 ]
 
+# -- 7. two vent plans compared before a review ---------------------------------------------------
+NOTEBOOKS["vent_plan_review.ipynb"] = [
+    ("md", """\
+# Two vent plans for one vessel, compared before the review
+
+**Scenario (invented for this demo).** *Corvane Gas Works* must empty its 40-litre liquid-CO₂
+buffer vessel **BV-12** (18 °C, 58 bar) before a valve is replaced. Two plans are on the table:
+
+* **Plan A**: vent the liquid straight to the atmosphere through the drain valve;
+* **Plan B**: send it through the electric vaporizer at vessel pressure (to 60 °C), then vent
+  the gas through the same valve.
+
+The shift lead, the safety engineer and the process owner review the plans together. Before the
+meeting the process engineer compares them with phasepath, picks one, and files its report: a
+single HTML page with the diagram, the tables, the hazard flags and cautions, the sources and the
+versions that produced the numbers.
+
+**Simplification, stated.** Each vent is modelled as one throttle from the vessel's starting
+state; as the vessel empties its own temperature and pressure fall, which is not modelled here."""),
+    ("md", SAFETY.format(hazards=(
+        "Liquid CO₂ let down below 5.2 bar forms dry ice, which plugs valves and lines and can "
+        "let go suddenly; vented CO₂ displaces oxygen and can asphyxiate in enclosed or "
+        "low-lying spaces; cold gas and dry ice cause cold burns."))),
+    ("code", SETUP),
+    ("md", "## The two plans"),
+    ("code", """\
+plan_a = pp.Route("CO2", T="18 degC", p="58 bar",
+                  title="BV-12 plan A: vent the liquid straight to atmosphere")
+plan_a.isenthalp(p="1 atm")
+
+plan_b = pp.Route("CO2", T="18 degC", p="58 bar",
+                  title="BV-12 plan B: vaporizer to 60 degC, then vent")
+plan_b.isobar(T="60 degC").isenthalp(p="1 atm")
+
+report_a, report_b = plan_a.analyze(), plan_b.analyze()
+print(format_report(report_a, "degC", "bar"))"""),
+    ("code", """\
+print(format_report(report_b, "degC", "bar"))"""),
+    ("md", """\
+## What differs
+
+`pp.compare(a, b)` pairs the crossings of the two plans and compares each leg's end state,
+fractions, heat and work and its hazard flags, within stated tolerances. `~` moved or changed,
+`+` only in B, `-` only in A. The same comparison runs on the command line as
+`phasepath diff A.yaml B.yaml`, which exits with status 1 when the plans differ."""),
+    ("code", """\
+comparison = pp.compare(plan_a, plan_b)
+print(comparison.text(F.DisplayUnits("degC", "bar", "kJ/kg")))"""),
+    ("code", """\
+# what the safety engineer asks first: which hazards does plan B lose or gain?
+for d in comparison.differences:
+    if d.item == "hazard":
+        print(f"{d.sign} leg {d.leg}: {d.field}")
+vaporizer = report_b.legs[0]
+print(f"vaporizer duty in plan B: {F.quantity(vaporizer.heat, 'energy', 'kJ/kg')} (per kg of CO2)")
+print(f"gas leaves the valve at {F.quantity(report_b.legs[1].end.T, 'temperature', 'degC')}")"""),
+    ("md", """\
+## The chosen plan, filed for the review
+
+Plan B keeps dry ice out of the valve at the cost of the vaporizer duty above. The team files
+the plan as a route file, its report, and the side-by-side comparison; the route file goes
+under version control, with its expected results, so that `phasepath check` keeps it honest."""),
+    ("code", """\
+import html
+from pathlib import Path
+
+folder = Path("reports")
+folder.mkdir(exist_ok=True)
+plan_a.save(folder / "bv12_plan_a.yaml")
+plan_b.save(folder / "bv12_plan_b.yaml")
+report_b.save_html(folder / "bv12_plan_b.html", route_file=folder / "bv12_plan_b.yaml")
+comparison.save_html(folder / "bv12_plan_a_vs_b.html")
+page = html.unescape((folder / "bv12_plan_b.html").read_text(encoding="utf-8"))
+print(sorted(p.name for p in folder.iterdir()))
+print("figures:", page.count("<svg"), "| tables:", page.count("<table"),
+      "| cautions listed:", sum(c in page for c in report_b.cautions), "of",
+      len(report_b.cautions))"""),
+    ("md", """\
+The same steps from a terminal (or a CI job): the report of the chosen plan, the comparison, and
+the check of the plan against its expected results."""),
+    ("code", """\
+from phasepath import cli
+
+status = cli.main(["diff", "reports/bv12_plan_a.yaml", "reports/bv12_plan_b.yaml",
+                   "--only", "hazards"])
+print("exit status:", status)"""),
+    ("md", """\
+## Results and cautions
+
+* Plan A forms dry ice at the valve (about 31 % of the vented mass as solid at −78.5 °C): it
+  can plug the drain valve and let go suddenly. It is rejected.
+* Plan B vaporizes the liquid first (about 238 kJ per kg of CO₂) and vents gas only; the gas
+  still leaves the valve close to 0 °C, so the vent line gets cold and wet.
+* Both plans release CO₂: vent outdoors or to a ducted stack, monitor CO₂ where people work,
+  and keep the relief path clear. The flags are prompts for the review, not a safety
+  assessment: defer to local codes, site procedures and licensed practice."""),
+]
+
 
 NOTEBOOKS["planner.ipynb"] = [
     ("md", """\

@@ -5,6 +5,7 @@ from __future__ import annotations
 from . import errors
 from .batch import analyze_many
 from .catalog import substance, substances
+from .comparison import Comparison, compare
 from .errors import (
     BatchError,
     NonFiniteError,
@@ -33,6 +34,8 @@ __all__ = [
     "Leg",
     "analyze_many",
     "format_report",
+    "compare",
+    "Comparison",
     "sweep",
     "Report",
     "Crossing",

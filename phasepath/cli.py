@@ -1,15 +1,22 @@
-"""The ``phasepath`` command line: analyse a route file, check it against saved results, draw.
+"""The ``phasepath`` command line: analyse a route file, check it against saved results,
+compare two plans, write the HTML report, draw.
 
 ::
 
     phasepath analyze ROUTE_FILE [--format table|csv|json] [--units degC,bar,kJ/kg] [-o FILE]
-    phasepath check ROUTE_FILE EXPECTED_FILE [--tol-T K] [--tol-p REL] [--tol-latent REL]
+    phasepath check ROUTE_FILE EXPECTED_FILE [TOLERANCES] [--only crossings,legs,hazards]
+    phasepath diff PLAN_A PLAN_B [TOLERANCES] [--only ...] [--format text|html] [-o FILE]
+    phasepath report ROUTE_FILE -o FILE.html [--units degC,bar,kJ/kg] [--title TEXT]
     phasepath diagram SUBSTANCE -o FILE.svg|FILE.png [--route ROUTE_FILE] [--units degC,bar]
 
+    TOLERANCES: [--tol-T K] [--tol-p REL] [--tol-latent REL] [--tol-energy REL]
+                [--tol-energy-abs J/kg] [--tol-fraction ABS]
+
 This module reads the arguments and hands them on: the tables come from
-:mod:`phasepath.tables`, results files and their comparison from :mod:`phasepath.results`, the
-figure from :mod:`phasepath.plot`. Exit status: 0 all well, 1 ``check`` found a difference, 2 bad
-input (one line on stderr, never a traceback).
+:mod:`phasepath.tables`, results files from :mod:`phasepath.results`, the comparison of two sets
+of results from :mod:`phasepath.comparison`, the report from :mod:`phasepath.htmlreport`, the
+figures from :mod:`phasepath.plot`. Exit status: 0 all well, 1 ``check`` or ``diff`` found a
+difference, 2 bad input (one line on stderr, never a traceback).
 """
 
 from __future__ import annotations
@@ -18,16 +25,15 @@ import argparse
 import math
 import sys
 from collections.abc import Sequence
-from dataclasses import asdict
 from pathlib import Path
 from typing import Any, NoReturn
 
-from . import fileio, plot, results, tables
+from . import comparison, fileio, plot, results, tables
 from .catalog import substance
 from .errors import PhasePathError, UnitError
-from .format import UNIT_LABELS, DisplayUnits
+from .format import DisplayUnits
 from .routefile import load_route
-from .units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, convert
+from .units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS
 from .version import __version__
 
 __all__ = ["main"]
@@ -108,26 +114,52 @@ def _parser() -> argparse.ArgumentParser:
     c = sub.add_parser(
         "check",
         help="re-analyse a route and compare with saved results",
-        description="Re-analyse ROUTE_FILE and compare its crossings with EXPECTED_FILE "
-        "(written by 'phasepath analyze --format json'). Exit status 1 if a crossing moved "
-        "beyond the tolerances, appeared or disappeared.",
+        description="Re-analyse ROUTE_FILE and compare it with EXPECTED_FILE (written by "
+        "'phasepath analyze --format json'): the crossings, each leg's end state (T, p, phase, "
+        "ice form, vapor and solid fraction), heat and work, and the hazard flags. Exit status "
+        "1 if anything moved beyond the tolerances, appeared or disappeared.",
     )
     c.add_argument("route", metavar="ROUTE_FILE")
     c.add_argument("expected", metavar="EXPECTED_FILE")
-    for flag, default, meta, what in (
-        ("--tol-T", results.TOL_T, "KELVIN", "change of a crossing temperature [K]"),
-        ("--tol-p", results.TOL_P, "REL", "relative change of a crossing pressure"),
-        ("--tol-latent", results.TOL_LATENT, "REL", "relative change of a latent heat"),
-    ):
-        c.add_argument(
-            flag,
-            type=_tolerance,
-            default=default,
-            metavar=meta,
-            help=f"largest allowed {what} (default {default:g})",
-        )
+    _comparison_options(c)
     c.add_argument("--units", default=None, help=units_help)
     c.set_defaults(run=_check)
+
+    f = sub.add_parser(
+        "diff",
+        help="compare plan B with plan A",
+        description="Analyse two route files and print what differs in B from A: crossings "
+        "moved, appeared or disappeared, legs whose end state, fractions, heat or work changed, "
+        "hazards gained or lost. Exit status 1 if the plans differ beyond the tolerances, 0 if "
+        "they agree.",
+    )
+    f.add_argument("plan_a", metavar="PLAN_A", help="route file of plan A")
+    f.add_argument("plan_b", metavar="PLAN_B", help="route file of plan B")
+    _comparison_options(f)
+    f.add_argument("--units", default=None, help=units_help)
+    f.add_argument(
+        "--format",
+        choices=("text", "html"),
+        default="text",
+        help="text (default) or html: the side-by-side report (both plans on one diagram, the "
+        "differences, each plan's tables; needs -o)",
+    )
+    f.add_argument("-o", "--output", default=None, help="write to FILE instead of the screen")
+    f.set_defaults(run=_diff)
+
+    r = sub.add_parser(
+        "report",
+        help="write the HTML report of a route",
+        description="Analyse ROUTE_FILE and write its review-ready report: one self-contained "
+        "HTML file (diagram, crossings and legs tables, hazard flags and cautions, models and "
+        "sources, versions, the route file's SHA-256, date and time) that prints cleanly on "
+        "A4 or Letter. The diagram needs matplotlib: pip install 'phasepath[plot]'.",
+    )
+    r.add_argument("route", metavar="ROUTE_FILE")
+    r.add_argument("-o", "--output", required=True, metavar="FILE", help="output file, .html")
+    r.add_argument("--units", default=None, help=units_help)
+    r.add_argument("--title", default=None, help="report title (default: the route's title)")
+    r.set_defaults(run=_report)
 
     d = sub.add_parser(
         "diagram",
@@ -144,6 +176,55 @@ def _parser() -> argparse.ArgumentParser:
     d.add_argument("--title", default=None, help="figure title (default: the route's title)")
     d.set_defaults(run=_diagram)
     return p
+
+
+#: (flag, Tolerances field, metavar, what it bounds)
+_TOLERANCES = (
+    ("--tol-T", "T", "KELVIN", "change of a temperature (crossings, leg ends) [K]"),
+    ("--tol-p", "p", "REL", "relative change of a pressure (crossings, leg ends)"),
+    ("--tol-latent", "latent", "REL", "relative change of a latent heat"),
+    ("--tol-energy", "energy", "REL", "relative change of a leg's heat or work"),
+    ("--tol-energy-abs", "energy_abs", "J/KG", "change of a leg's heat or work [J/kg]"),
+    ("--tol-fraction", "fraction", "ABS", "change of a vapor or solid mass fraction"),
+)
+
+
+def _comparison_options(p: argparse.ArgumentParser) -> None:
+    defaults = comparison.Tolerances()
+    for flag, name, meta, what in _TOLERANCES:
+        default = getattr(defaults, name)
+        p.add_argument(
+            flag,
+            dest=f"tol_{name}",
+            type=_tolerance,
+            default=default,
+            metavar=meta,
+            help=f"largest allowed {what} (default {default:g})",
+        )
+    p.add_argument(
+        "--only",
+        type=_only,
+        default=comparison.SCOPES,
+        metavar="WHAT",
+        help="compare only some of: crossings, legs (end states, fractions, heat, work), "
+        "hazards; comma-separated (default: all; '--only crossings' compares crossings alone)",
+    )
+
+
+def _only(text: str) -> tuple[str, ...]:
+    chosen = tuple(t.strip() for t in text.split(",") if t.strip())
+    bad = [t for t in chosen if t not in comparison.SCOPES]
+    if bad or not chosen:
+        raise argparse.ArgumentTypeError(
+            f"{text!r}: choose from {', '.join(comparison.SCOPES)} (comma-separated)"
+        )
+    return chosen
+
+
+def _tolerances(args: argparse.Namespace) -> comparison.Tolerances:
+    return comparison.Tolerances(
+        **{name: getattr(args, f"tol_{name}") for _, name, _, _ in _TOLERANCES}
+    )
 
 
 def _tolerance(text: str) -> float:
@@ -213,69 +294,89 @@ def _analyze(args: argparse.Namespace) -> int:
 
 def _check(args: argparse.Namespace) -> int:
     route = load_route(args.route)
-    expected_doc = results.read(args.expected)
+    expected = results.read(args.expected)
     report = route.analyze()
-    actual = [asdict(c) for c in report.crossings]
-    expected = expected_doc["crossings"]
+    actual = results.document(report)
     units = _units(args.units)
-    diffs = results.compare_crossings(expected, actual, args.tol_T, args.tol_p, args.tol_latent)
-    sub_changed = expected_doc.get("substance") not in (None, report.substance.name)
+    tol = _tolerances(args)
+    diffs = comparison.compare_documents(expected, actual, tol, args.only)
+    versions = comparison.version_changes(expected, actual)
     print(f"phasepath check: {args.route} against {args.expected}")
-    print(
-        f"tolerances: T {args.tol_T:g} K, p {args.tol_p:g} relative, latent heat "
-        f"{args.tol_latent:g} relative"
-    )
-    if sub_changed:
-        print(
-            f"  ! substance: expected {expected_doc.get('substance')}, "
-            f"route is {report.substance.name}"
+    print(f"tolerances: {tol.describe()}")
+    if tuple(args.only) != comparison.SCOPES:
+        print(f"compared: {', '.join(args.only)} only")
+    for name, old, new in versions:
+        why = (
+            "the property data may have changed: a reason to re-baseline once the differences "
+            "are understood"
+            if name == "CoolProp"
+            else "phasepath's models or rules may have changed"
         )
+        print(f"  ! VERSION {name}: expected file from {old}, this run {new} ({why})")
     for d in diffs:
-        print("  " + _diff_line(d, units))
-    if diffs or sub_changed:
-        counts: dict[str, int] = {}
-        for d in diffs:
-            counts[d["status"]] = counts.get(d["status"], 0) + 1
-        summary = ", ".join(f"{n} {s}" for s, n in counts.items()) or "substance changed"
-        print(f"FAILED: {summary} ({len(expected)} crossings expected, {len(actual)} found)")
-        print(f"phasepath check FAILED for {args.route}: {summary}", file=sys.stderr)
+        print("  " + comparison.describe(d, units, tol))
+    what = _counts(expected, args.only)
+    if diffs:
+        found = f"{_counts(actual, args.only)} found"
+        cause = ""
+        if versions:
+            changed = ", ".join(f"{n} {o} -> {w}" for n, o, w in versions)
+            cause = f"; versions changed ({changed}): re-baseline if the differences are expected"
+        summary = comparison.summary(diffs)
+        print(f"FAILED: {summary} ({what} expected, {found}){cause}")
+        print(f"phasepath check FAILED for {args.route}: {summary}{cause}", file=sys.stderr)
         return 1
-    print(f"OK: all {len(expected)} crossings match within the tolerances")
+    if tuple(args.only) == ("crossings",):
+        print(f"OK: all {what} match within the tolerances")
+    else:
+        print(f"OK: {what} match within the tolerances")
     return 0
 
 
-def _diff_line(d: dict[str, Any], units: DisplayUnits) -> str:
-    def T(x: float) -> str:
-        return f"{convert(x, 'K', units.T, 'temperature'):.8g} {UNIT_LABELS[units.T]}"
+def _counted(n: int, noun: str) -> str:
+    return f"{n} {noun}{'s' if n != 1 else ''}"
 
-    def P(x: float) -> str:
-        return f"{convert(x, 'Pa', units.p, 'pressure'):.8g} {UNIT_LABELS[units.p]}"
 
-    def L(x: float | None) -> str:
-        if x is None:
-            return "none"
-        return f"{convert(x, 'J/kg', units.energy, 'energy'):.6g} {UNIT_LABELS[units.energy]}"
+def _counts(doc: dict[str, Any], only: Sequence[str]) -> str:
+    """Counts in words, e.g. 3 crossings and 2 legs (the crossings alone when only they are
+    compared)."""
+    text = _counted(len(doc["crossings"]), "crossing")
+    if tuple(only) != ("crossings",):
+        text += f" and {_counted(len(doc['legs']), 'leg')}"
+    return text
 
-    e, a = d["expected"], d["actual"]
-    if d["status"] == "moved":
-        parts = []
-        if "T" in d["reasons"]:
-            parts.append(f"T {T(e['T'])} -> {T(a['T'])} (change {a['T'] - e['T']:+.4g} K)")
-        if "p" in d["reasons"]:
-            parts.append(
-                f"p {P(e['p'])} -> {P(a['p'])} (change {(a['p'] - e['p']) / e['p']:+.3g} relative)"
-            )
-        if "latent heat" in d["reasons"]:
-            parts.append(f"latent heat {L(e.get('latent_heat'))} -> {L(a.get('latent_heat'))}")
-        return f"~ MOVED       {results.label(e)}: " + "; ".join(parts)
-    if d["status"] == "changed":
-        return (
-            f"~ CHANGED     {results.label(e)}: boundary {e.get('boundary')!r} -> "
-            f"{a.get('boundary')!r}"
+
+def _diff(args: argparse.Namespace) -> int:
+    if args.format == "html" and not args.output:
+        raise _UsageError("--format html writes a file: give -o FILE.html")
+    _refuse_overwrite(args.output, [args.plan_a, args.plan_b])
+    route_a, route_b = load_route(args.plan_a), load_route(args.plan_b)
+    units = _units(args.units)
+    cmp = comparison.compare(
+        route_a, route_b, tolerances=_tolerances(args), only=args.only, labels=("A", "B")
+    )
+    if args.format == "html":
+        fileio.write_text(args.output, cmp.to_html(units), _UsageError)
+        print(f"wrote {args.output}")
+        print(
+            "AGREE: the plans match within the tolerances"
+            if cmp.agree
+            else f"DIFFER: {comparison.summary(cmp.differences)}"
         )
-    if d["status"] == "appeared":
-        return f"+ APPEARED    {results.label(a)} at T = {T(a['T'])}, p = {P(a['p'])}"
-    return f"- DISAPPEARED {results.label(e)} (expected at T = {T(e['T'])}, p = {P(e['p'])})"
+    else:
+        _write(args.output, cmp.text(units))
+    return 0 if cmp.agree else 1
+
+
+def _report(args: argparse.Namespace) -> int:
+    _refuse_overwrite(args.output, [args.route])
+    route = load_route(args.route)
+    units = _units(args.units)
+    report = route.analyze()
+    text = report.to_html(units.T, units.p, units.energy, title=args.title, route_file=args.route)
+    fileio.write_text(args.output, text, _UsageError)
+    print(f"wrote {args.output}")
+    return 0
 
 
 def _diagram(args: argparse.Namespace) -> int:

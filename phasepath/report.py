@@ -10,12 +10,14 @@ import html
 from dataclasses import asdict
 from typing import TYPE_CHECKING, Any
 
-from . import tables
+from . import fileio, htmlreport, tables
 from .format import DisplayUnits
 from .records import CROSSING_KINDS, Crossing, Hazard, LegSummary, StatePoint
 from .substances import Substance
 
 if TYPE_CHECKING:  # pragma: no cover
+    from datetime import datetime
+
     import pandas as pd
 
     from .route import Route
@@ -102,6 +104,44 @@ class Report:
             "notes": list(self.notes),
             "cautions": list(self.cautions),
         }
+
+    # -- the HTML report -------------------------------------------------------------------------
+    def to_html(
+        self,
+        T_unit: str = "degC",
+        p_unit: str = "bar",
+        energy_unit: str = "kJ/kg",
+        *,
+        title: str | None = None,
+        route_file: object = None,
+        when: datetime | None = None,
+    ) -> str:
+        """The review-ready report as one self-contained HTML page (no network): diagram, tables,
+        hazard flags, cautions, models and sources, provenance; see :mod:`phasepath.htmlreport`.
+
+        ``route_file``: the route file the route came from (its SHA-256 is recorded); ``when``:
+        the date and time to record (default now, UTC).
+        """
+        units = DisplayUnits(T_unit, p_unit, energy_unit)
+        return htmlreport.report_html(self, units, title=title, route_file=route_file, when=when)
+
+    def save_html(
+        self,
+        path: object,
+        T_unit: str = "degC",
+        p_unit: str = "bar",
+        energy_unit: str = "kJ/kg",
+        *,
+        title: str | None = None,
+        route_file: object = None,
+        when: datetime | None = None,
+    ) -> None:
+        """Write :meth:`to_html` (same options) to ``path`` atomically (a failed write leaves
+        an existing file as it was)."""
+        text = self.to_html(
+            T_unit, p_unit, energy_unit, title=title, route_file=route_file, when=when
+        )
+        fileio.write_text(path, text)
 
     def _repr_html_(self) -> str:
         units = DisplayUnits("K", "bar", "kJ/kg")

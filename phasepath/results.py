@@ -1,9 +1,24 @@
 """Results files: the analysed route as plain data (SI, full precision), read back with checks,
-and the comparison of a re-analysis with them (``phasepath check``).
+and the pairing of crossings that ``phasepath check`` and ``phasepath diff`` build on.
 
 A *phasepath results file* is JSON: ``format`` ("phasepath results"), ``version``, the versions of
-phasepath and of the property library that produced it, the substance, the route as written,
-every crossing and every leg (without the sampled path), the notes and the cautions.
+phasepath and of the property library (CoolProp) that produced it, the substance, the route as
+written, every crossing and every leg (without the sampled path), the notes and the cautions. The
+format is described by the JSON Schema ``phasepath/data/results.schema.json`` (:func:`schema`),
+and :func:`read` checks a file against that schema, so the file and its description cannot drift
+apart: a wrong type, a missing or unknown field, a pressure at or below zero, a non-finite number
+or an absurdly long integer is refused with an error naming the field.
+
+>>> import phasepath as pp
+>>> doc = document(pp.Route("water", T="20 degC", p="1 atm").isobar(T="120 degC").analyze())
+>>> doc["format"], doc["version"], [c["kind"] for c in doc["crossings"]]
+('phasepath results', 2, ['vaporization'])
+>>> validate(doc)
+>>> doc["legs"][0]["end"]["p"] = -1.0
+>>> validate(doc)
+Traceback (most recent call last):
+...
+phasepath.errors.ResultsFileError: legs[0].end.p: -1.0 is not above 0 (pressure [Pa])
 """
 
 from __future__ import annotations
@@ -11,11 +26,13 @@ from __future__ import annotations
 import json
 import math
 from dataclasses import asdict
+from functools import lru_cache
+from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 from . import fileio
 from .eos import library_version
-from .errors import ResultsFileError
+from .errors import ResultsFileError, shown
 from .records import phase_text
 from .routefile import dumps_route
 from .version import __version__
@@ -27,7 +44,11 @@ __all__ = [
     "document",
     "dumps",
     "read",
+    "loads",
+    "validate",
+    "schema",
     "compare_crossings",
+    "label",
     "FORMAT",
     "VERSION",
     "TOL_T",
@@ -37,19 +58,21 @@ __all__ = [
 
 #: The ``format`` field of a results file.
 FORMAT = "phasepath results"
-#: The version of the results file format this phasepath writes and reads.
-VERSION = 1
-#: Default tolerances of a comparison: absolute in T [K], relative in p and latent heat.
+#: The version of the results file format this phasepath writes and reads (1: before the schema,
+#: without the property-library version and the cautions).
+VERSION = 2
+#: Default tolerances of a crossing comparison: absolute in T [K], relative in p and latent heat.
 TOL_T = 0.01
 TOL_P = 1e-4
 TOL_LATENT = 1e-3
 
-_NEED = ("step", "kind", "from_phase", "to_phase", "T", "p")
+_SCHEMA_PATH = Path(__file__).parent / "data" / "results.schema.json"
+_LONGEST_INT = 20  # digits: longer integers in a results file are refused unread
 
 
 def document(report: Report) -> dict[str, Any]:
-    """The results of an analysed route as plain data (SI units, full precision)."""
-    return {
+    """The results of an analysed route as plain JSON data (SI units, full precision)."""
+    doc = {
         "format": FORMAT,
         "version": VERSION,
         "phasepath": __version__,
@@ -61,6 +84,8 @@ def document(report: Report) -> dict[str, Any]:
         "notes": list(report.notes),
         "cautions": list(report.cautions),
     }
+    plain: dict[str, Any] = json.loads(json.dumps(doc, allow_nan=False))  # tuples become lists
+    return plain
 
 
 def dumps(report: Report) -> str:
@@ -74,45 +99,226 @@ def _leg(leg: Any) -> dict[str, Any]:
     return d
 
 
+# -- reading -------------------------------------------------------------------------------------
 def read(path: object) -> dict[str, Any]:
-    """A results file, checked: its format and version, and every crossing's fields."""
+    """A results file, checked against its schema (see :func:`loads`)."""
     name = fileio.path_text(path, ResultsFileError)
     raw = fileio.read_bytes(name, fileio.MAX_BYTES, ResultsFileError)
     try:
-        data = json.loads(raw.decode("utf-8-sig"))
-    except json.JSONDecodeError as exc:
-        raise ResultsFileError(f"not valid JSON: {exc.msg}", source=name, line=exc.lineno) from None
+        text = raw.decode("utf-8-sig")
     except UnicodeDecodeError:
         raise ResultsFileError("not UTF-8 text", source=name) from None
+    return loads(text, source=name)
+
+
+def loads(text: str, source: str = "<text>") -> dict[str, Any]:
+    """A results document from its text: JSON, the right ``format``, a version this phasepath
+    reads, and every field as the schema says; else a :class:`ResultsFileError` naming the field.
+    """
+
+    def no_duplicates(pairs: list[tuple[str, Any]]) -> dict[str, Any]:
+        out: dict[str, Any] = {}
+        for k, v in pairs:
+            if k in out:
+                raise ResultsFileError(f"the key {k!r} appears twice in one object", source=source)
+            out[k] = v
+        return out
+
+    try:
+        data = json.loads(
+            text,
+            parse_int=_parse_int,
+            parse_float=_parse_float,
+            parse_constant=_NonFinite,
+            object_pairs_hook=no_duplicates,
+        )
+    except json.JSONDecodeError as exc:
+        raise ResultsFileError(
+            f"not valid JSON: {exc.msg}", source=source, line=exc.lineno
+        ) from None
+    except ResultsFileError:
+        raise
     except (ValueError, RecursionError) as exc:
-        raise ResultsFileError(f"not a valid results file: {str(exc)[:120]}", source=name) from None
+        raise ResultsFileError(
+            f"not a valid results file: {str(exc)[:120]}", source=source
+        ) from None
     if not isinstance(data, dict) or data.get("format") != FORMAT:
         raise ResultsFileError(
             f"not a phasepath results file (write one with "
-            f"'phasepath analyze ROUTE_FILE --format json -o {name}')",
-            source=name,
+            f"'phasepath analyze ROUTE_FILE --format json -o {source}')",
+            source=source,
         )
-    if data.get("version") != VERSION:
+    version = data.get("version")
+    if not isinstance(version, int) or isinstance(version, bool):
         raise ResultsFileError(
-            f"results file version {data.get('version')!r}; this phasepath reads version {VERSION}",
-            source=name,
+            f"{shown(version)} is not a format version (a whole number)",
+            source=source,
+            field="version",
         )
-    crossings = data.get("crossings")
-    if not isinstance(crossings, list):
-        raise ResultsFileError("expected a list", source=name, field="crossings")
-    for i, c in enumerate(crossings):
-        if not isinstance(c, dict) or any(k not in c for k in _NEED):
-            raise ResultsFileError(
-                f"expected a mapping with {', '.join(_NEED)}", source=name, field=f"crossings[{i}]"
-            )
-        for k in ("T", "p"):
-            if not isinstance(c[k], (int, float)) or not math.isfinite(c[k]):
-                raise ResultsFileError(
-                    f"{c[k]!r} is not a number", source=name, field=f"crossings[{i}].{k}"
-                )
+    if version > VERSION:
+        raise ResultsFileError(
+            f"results file version {version} is newer than this phasepath {__version__} reads "
+            f"(version {VERSION}): upgrade phasepath to check against it",
+            source=source,
+        )
+    if version < VERSION:
+        raise ResultsFileError(
+            f"results file version {version} (written by phasepath "
+            f"{data.get('phasepath', 'of an older version')}) is older than this phasepath reads "
+            f"(version {VERSION}, which records the property-data version): write it again with "
+            f"'phasepath analyze ROUTE_FILE --format json -o {source}' after reviewing the plan",
+            source=source,
+        )
+    validate(data, source)
     return data
 
 
+class _NonFinite:
+    """A NaN or an infinity found in the text: kept as a marker, refused by :func:`validate`
+    with the field it is in."""
+
+    def __init__(self, text: str) -> None:
+        self.text = text
+
+    def __repr__(self) -> str:
+        return self.text
+
+
+class _LongInt:
+    """An integer with more digits than any results file holds, kept unconverted."""
+
+    def __init__(self, text: str) -> None:
+        self.digits = len(text.lstrip("-"))
+
+    def __repr__(self) -> str:
+        return f"<an integer of {self.digits} digits>"
+
+
+def _parse_int(text: str) -> int | _LongInt:
+    return _LongInt(text) if len(text.lstrip("-")) > _LONGEST_INT else int(text)
+
+
+def _parse_float(text: str) -> float | _NonFinite:
+    x = float(text)
+    return x if math.isfinite(x) else _NonFinite(text)
+
+
+# -- the schema ------------------------------------------------------------------------------------
+@lru_cache(maxsize=1)
+def _schema_text() -> str:
+    return _SCHEMA_PATH.read_text(encoding="utf-8")
+
+
+def schema() -> dict[str, Any]:
+    """The JSON Schema of results files (a fresh copy)."""
+    result: dict[str, Any] = json.loads(_schema_text())
+    return result
+
+
+def validate(data: Any, source: str | None = None) -> None:
+    """Check a results document against :func:`schema`; a :class:`ResultsFileError` names the
+    first field that does not fit.
+
+    The checker reads the keywords the schema uses (``type``, ``const``, ``enum``,
+    ``properties``, ``required``, ``additionalProperties``, ``items``, ``minimum``,
+    ``exclusiveMinimum``, ``minLength``, ``maxLength``, ``$ref`` within the file), so what the
+    schema says is what is enforced.
+    """
+    root = _schema()
+    _check(data, root, root, "", source)
+
+
+@lru_cache(maxsize=1)
+def _schema() -> dict[str, Any]:
+    return schema()
+
+
+_TYPES = {
+    "object": "a mapping",
+    "array": "a list",
+    "string": "text",
+    "number": "a number",
+    "integer": "a whole number",
+    "boolean": "true or false",
+    "null": "null",
+}
+
+
+def _is(value: Any, kind: str) -> bool:
+    if kind == "null":
+        return value is None
+    if kind == "boolean":
+        return isinstance(value, bool)
+    if kind == "integer":
+        return isinstance(value, int) and not isinstance(value, bool)
+    if kind == "number":
+        return isinstance(value, (int, float)) and not isinstance(value, bool)
+    if kind == "string":
+        return isinstance(value, str)
+    if kind == "array":
+        return isinstance(value, list)
+    return isinstance(value, dict)
+
+
+def _check(
+    value: Any, rule: dict[str, Any], root: dict[str, Any], where: str, source: str | None
+) -> None:
+    def fail(detail: str) -> ResultsFileError:
+        return ResultsFileError(detail, field=where or None, source=source)
+
+    if "$ref" in rule:
+        name = rule["$ref"].rsplit("/", 1)[-1]
+        _check(value, root["$defs"][name], root, where, source)
+        return
+    if isinstance(value, _NonFinite):
+        raise fail(f"{value.text} is not a finite number")
+    if isinstance(value, _LongInt):
+        raise fail(f"an integer of {value.digits} digits is not a value a results file holds")
+    if "const" in rule and (value != rule["const"] or type(value) is not type(rule["const"])):
+        raise fail(f"{shown(value)} is not {rule['const']!r}")
+    if "enum" in rule and not (isinstance(value, str) and value in rule["enum"]):
+        raise fail(f"{shown(value)} is not one of {', '.join(map(str, rule['enum']))}")
+    kinds = rule.get("type")
+    if kinds is not None:
+        kinds = [kinds] if isinstance(kinds, str) else list(kinds)
+        if not any(_is(value, k) for k in kinds):
+            want = " or ".join(_TYPES[k] for k in kinds)
+            raise fail(f"{shown(value)} is {_kind_of(value)}, not {want}")
+    if _is(value, "number"):
+        what = f" ({rule['description']})" if "description" in rule else ""
+        if "exclusiveMinimum" in rule and not value > rule["exclusiveMinimum"]:
+            raise fail(f"{shown(value)} is not above {rule['exclusiveMinimum']}{what}")
+        if "minimum" in rule and not value >= rule["minimum"]:
+            raise fail(f"{shown(value)} is below {rule['minimum']}{what}")
+    if isinstance(value, str):
+        if len(value) < rule.get("minLength", 0):
+            raise fail("is empty")
+        if "maxLength" in rule and len(value) > rule["maxLength"]:
+            raise fail(f"is longer than {rule['maxLength']} characters")
+    if isinstance(value, list) and "items" in rule:
+        for i, item in enumerate(value):
+            _check(item, rule["items"], root, f"{where}[{i}]", source)
+    if isinstance(value, dict):
+        props = rule.get("properties", {})
+        for key in rule.get("required", ()):
+            if key not in value:
+                raise fail(f"the field {key!r} is missing")
+        for key, item in value.items():
+            inner = f"{where}.{key}" if where else key
+            if key in props:
+                _check(item, props[key], root, inner, source)
+            elif rule.get("additionalProperties", True) is False:
+                raise fail(f"unknown field {key!r}")
+
+
+def _kind_of(value: Any) -> str:
+    for kind in ("null", "boolean", "integer", "number", "string", "array", "object"):
+        if _is(value, kind):
+            return _TYPES[kind]
+    return type(value).__name__
+
+
+# -- pairing crossings -----------------------------------------------------------------------------
 def _key(c: dict[str, Any]) -> tuple[Any, ...]:
     return (
         int(c["step"]),

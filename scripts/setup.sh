@@ -1,20 +1,28 @@
 #!/usr/bin/env bash
-# Set up a fresh machine for phasepath: Debian packages (chromium for the browser tests, when
-# asked), a virtual environment in .venv and phasepath installed into it with its test extras.
+# Set up a fresh machine for phasepath: Debian packages (chromium and poppler-utils for the
+# browser tests, when asked), a virtual environment in .venv and phasepath installed into it
+# with its test extras.
 # Sourced by scripts/test.sh and scripts/serve.sh; safe to run again (it only adds what is missing).
 set -euo pipefail
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$here"
 
 want_browser="${PHASEPATH_BROWSER:-1}"
-if [ "$want_browser" = "1" ] && ! command -v chromium >/dev/null 2>&1; then
+# chromium for the browser tests; poppler-utils (pdftoppm, pdftotext) to read back the report's PDF
+missing=""
+if [ "$want_browser" = "1" ]; then
+  command -v chromium >/dev/null 2>&1 || missing="$missing chromium"
+  command -v pdftoppm >/dev/null 2>&1 || missing="$missing poppler-utils"
+fi
+if [ -n "$missing" ]; then
   if [ "$(id -u)" = "0" ]; then SUDO=""; elif command -v sudo >/dev/null 2>&1; then SUDO="sudo"; else SUDO="none"; fi
   if [ "$SUDO" != "none" ] && command -v apt-get >/dev/null 2>&1; then
-    echo "phasepath setup: installing Debian's chromium for the browser tests"
+    echo "phasepath setup: installing Debian's$missing for the browser tests"
     $SUDO apt-get update -qq
-    DEBIAN_FRONTEND=noninteractive $SUDO apt-get install -y -qq chromium >/dev/null
+    # shellcheck disable=SC2086
+    DEBIAN_FRONTEND=noninteractive $SUDO apt-get install -y -qq $missing >/dev/null
   else
-    echo "phasepath setup: cannot install chromium here (no root, no apt-get); browser tests will be skipped" >&2
+    echo "phasepath setup: cannot install$missing here (no root, no apt-get); browser tests will be skipped" >&2
   fi
 fi
 
