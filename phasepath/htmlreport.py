@@ -38,10 +38,10 @@ from .correlations.atmosphere import ambient_pressure
 from .eos import library_version
 from .errors import PhasePathError
 from .format import DisplayUnits
+from .records import Analysis
 from .version import __version__
 
 if TYPE_CHECKING:  # pragma: no cover
-    from .report import Report
     from .route import Route
 
 __all__ = [
@@ -191,7 +191,7 @@ def _state(T: float, p: float, units: DisplayUnits) -> str:
     return f"{F.quantity(T, 'temperature', units.T)}, {F.quantity(p, 'pressure', units.p)}"
 
 
-def facts_html(report: Report, units: DisplayUnits) -> str:
+def facts_html(report: Analysis, units: DisplayUnits) -> str:
     """The substance, its triple and critical points, the start, the site and the basis."""
     sub, route = report.substance, report.route
     start = report.legs[0].start if report.legs else None
@@ -233,7 +233,7 @@ _CROSSING_COLUMNS = tuple(c for c in tables.CROSSINGS if c.brief)
 _LEG_COLUMNS = tuple(c for c in tables.LEGS if c.key != "note")
 
 
-def tables_html(report: Report, units: DisplayUnits, level: int = 2) -> str:
+def tables_html(report: Analysis, units: DisplayUnits, level: int = 2) -> str:
     """The crossings and legs tables (the legs' notes listed under them)."""
     h = f"h{level}"
     parts = [f"<section class='pp-keep pp-crossings'><{h}>Crossings</{h}>"]
@@ -256,7 +256,7 @@ def tables_html(report: Report, units: DisplayUnits, level: int = 2) -> str:
     return "".join(parts)
 
 
-def hazards_html(report: Report, level: int = 2) -> str:
+def hazards_html(report: Analysis, level: int = 2) -> str:
     """The hazard flags, leg by leg, and the cautions (``report.cautions``)."""
     h = f"h{level}"
     flags: list[str] = []
@@ -288,7 +288,7 @@ def hazards_html(report: Report, level: int = 2) -> str:
     return "".join(parts)
 
 
-def _models(report: Report) -> list[str]:
+def _models(report: Analysis) -> list[str]:
     seen: dict[str, None] = {}
     for c in report.crossings:
         if c.latent_heat_model:
@@ -302,7 +302,7 @@ def _models(report: Report) -> list[str]:
     return list(seen)
 
 
-def sources_html(report: Report, level: int = 2) -> str:
+def sources_html(report: Analysis, level: int = 2) -> str:
     """The models used (by name) and the published sources behind them (full citations)."""
     h = f"h{level}"
     models = "".join(f"<li>{html.escape(m)}</li>" for m in _models(report))
@@ -349,7 +349,7 @@ def page(title: str, body: str) -> str:
 
 # -- the report ----------------------------------------------------------------------------------
 def report_html(
-    report: Report,
+    report: Analysis,
     units: DisplayUnits | None = None,
     *,
     title: str | None = None,
@@ -361,7 +361,7 @@ def report_html(
 
     Parameters
     ----------
-    report : Report
+    report : Analysis
     units : DisplayUnits, optional
         Units of the numbers and the axes (default °C, bar, kJ/kg).
     title : str, optional

@@ -24,10 +24,10 @@ from typing import TYPE_CHECKING, Any
 from .errors import PhasePathError
 from .format import UNIT_LABELS, DisplayUnits
 from .paths import leg_line
+from .records import Analysis
 from .units import affine
 
 if TYPE_CHECKING:  # pragma: no cover
-    from .report import Report
     from .route import Route
     from .substances import Substance
 
@@ -185,7 +185,7 @@ def _special(ax: Any, sub: Substance, window: tuple[float, ...], s: _Scale) -> N
 def _plan(
     ax: Any,
     route: Route,
-    report: Report | None,
+    report: Analysis | None,
     s: _Scale,
     style: dict[str, Any],
     label: str,
@@ -277,7 +277,7 @@ def _check_fmt(fmt: str) -> None:
 
 
 def comparison_bytes(
-    plans: Sequence[tuple[str, Route, Report | None]],
+    plans: Sequence[tuple[str, Route, Analysis | None]],
     fmt: str = "svg",
     units: DisplayUnits | None = None,
     title: str | None = None,
@@ -326,7 +326,7 @@ def diagram_bytes(
     sub: Substance,
     fmt: str = "svg",
     route: Route | None = None,
-    report: Report | None = None,
+    report: Analysis | None = None,
     units: DisplayUnits | None = None,
     title: str | None = None,
 ) -> bytes:
@@ -380,7 +380,7 @@ def _dome(sub: Substance) -> tuple[list[float], list[float]]:
 
 
 def ph_bytes(
-    report: Report,
+    report: Analysis,
     fmt: str = "svg",
     units: DisplayUnits | None = None,
     title: str | None = None,

@@ -16,8 +16,9 @@ one row of :data:`LEG_KINDS`; a new leg kind starts as a new row there.
 from __future__ import annotations
 
 import re
+from collections.abc import Sequence
 from dataclasses import dataclass, field
-from typing import Any
+from typing import Any, Protocol
 
 from .errors import RouteError
 
@@ -38,6 +39,7 @@ __all__ = [
     "Leg",
     "Crossing",
     "LegSummary",
+    "Analysis",
     "crossing_kind",
     "describe_change",
     "boundary_of",
@@ -284,6 +286,29 @@ class LegSummary:
     path: tuple[StatePoint, ...] = field(default=(), compare=False, repr=False)
     hazards: tuple[Hazard, ...] = ()
     event: str = ""
+
+
+class Analysis(Protocol):
+    """What an analysed route offers to the renderers (tables, figures, HTML pages): the shape of
+    :class:`phasepath.report.Report`, named here so that the renderers need not import it."""
+
+    @property
+    def route(self) -> Any: ...  # a phasepath.route.Route
+
+    @property
+    def substance(self) -> Any: ...  # a phasepath.substances.Substance
+
+    @property
+    def crossings(self) -> Sequence[Crossing]: ...
+
+    @property
+    def legs(self) -> Sequence[LegSummary]: ...
+
+    @property
+    def notes(self) -> Sequence[str]: ...
+
+    @property
+    def cautions(self) -> Sequence[str]: ...
 
 
 def state_key(s: StatePoint) -> tuple[str, str | None]:

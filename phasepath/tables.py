@@ -24,13 +24,12 @@ from typing import TYPE_CHECKING, Any
 
 from . import format as F
 from .format import DisplayUnits
-from .records import Crossing, LegSummary
+from .records import Analysis, Crossing, LegSummary
 from .units import convert
 
 if TYPE_CHECKING:  # pragma: no cover
     import pandas as pd
 
-    from .report import Report
 
 __all__ = [
     "Column",
@@ -215,7 +214,7 @@ def html_table(
 
 
 def format_report(
-    report: Report, T_unit: str = "degC", p_unit: str = "bar", energy_unit: str = "kJ/kg"
+    report: Analysis, T_unit: str = "degC", p_unit: str = "bar", energy_unit: str = "kJ/kg"
 ) -> str:
     """The results as fixed-format text: title, crossings, legs, cautions and notes, numbers by
     the display-precision policy, so the text is the same on every machine for the same results
