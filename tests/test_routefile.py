@@ -85,7 +85,7 @@ YAML_CASES = [
     ("unknown-leg-field", lambda t: t.replace("T: 120 degC}", "T: 120 degC, speed: 3}"),
      "legs[0].speed (leg 1)", "speed: 3", "unknown field"),
     ("wrong-unit", lambda t: t.replace("p: 3 bar", "p: 3 degC"), "legs[1].p (leg 2)",
-     "p: 3 degC", "is not a pressure"),
+     "p: 3 degC", "is a temperature, not a pressure"),
     ("unknown-unit", lambda t: t.replace("T: 120 degC", "T: 120 blorps"),
      "legs[0].T (leg 1)", "120 blorps", "unknown unit"),
     ("missing-leg-target", lambda t: t.replace("{kind: isotherm, p: 3 bar}", "{kind: isotherm}"),
