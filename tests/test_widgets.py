@@ -40,20 +40,24 @@ pytest.importorskip("bqplot")
 from phasepath.widgets import RoutePlanner  # noqa: E402
 
 
-def click(planner: RoutePlanner, x: float, y: float) -> None:
-    """What the browser does on a click: append the point (display units) to the Scatter."""
-    s = planner.diagram.corners
-    with s.hold_sync(), s.hold_trait_notifications():  # as the page's one message does
-        s.x, s.y = np.append(s.x, float(x)), np.append(s.y, float(y))
+def click(planner: RoutePlanner, x: float, y: float, view: str = "pT", **keys: object) -> None:
+    """What the page sends for a click at (x, y) in display units: one message with its pixel
+    (at whole pixels, as browsers report them), handled as ipyevents hands it over."""
+    canvas = planner.canvases[view]
+    canvas._dom_click(canvas.page_event(x, y, **keys))
 
 
-def drag(planner: RoutePlanner, index: int, x: float, y: float) -> None:
-    """What the browser does at the end of a drag: move one point of the Scatter."""
-    s = planner.diagram.corners
+def drag(planner: RoutePlanner, index: int, x: float, y: float, view: str = "pT") -> None:
+    """What the page sends at the end of a drag of corner ``index``: the mark's point moved
+    (the state update) and the drag-end message with the point."""
+    canvas = planner.canvases[view]
+    k = canvas._index.index(index)
+    s = canvas.corners
     xs, ys = np.array(s.x, dtype=float), np.array(s.y, dtype=float)
-    xs[index], ys[index] = x, y
+    xs[k], ys[k] = x, y
     with s.hold_sync(), s.hold_trait_notifications():
         s.x, s.y = xs, ys
+    planner._page_drag_end(view, {"event": "drag_end", "index": k, "point": {"x": x, "y": y}})
 
 
 @pytest.fixture()
@@ -90,8 +94,8 @@ def test_clicks_draw_true_isotherm_and_isobar(co2):
     assert r.legs[0].p == pytest.approx(40e5, rel=1e-12)
     assert r.legs[1].p == r.legs[0].p  # snapped: a true isobar
     assert r.legs[1].T == pytest.approx(293.15, abs=1e-9)
-    # the user's own units are kept as typed text
-    assert r.legs[0].given == {"p": "40.00 bar"} and r.legs[1].given == {"T": "20.0 degC"}
+    # clicks snap to round values at the zoom, kept as typed text in the user's units
+    assert r.legs[0].given == {"p": "40 bar"} and r.legs[1].given == {"T": "20 degC"}
 
 
 def test_report_is_the_cores_and_matches_published_vapor_pressure(co2):
@@ -160,9 +164,7 @@ def test_drag_keeps_neighbouring_legs_true_and_updates_report(co2):
 def test_drag_preview_moves_only_the_line(co2):
     two_legs(co2)
     report = co2.report
-    co2._dragging(
-        co2.diagram.corners, {"event": "drag", "index": 2, "point": {"x": 0.0, "y": 40.0}}
-    )
+    co2._page_drag("pT", {"event": "drag", "index": 2, "point": {"x": 0.0, "y": 40.0}})
     assert co2.diagram.route_line.x[-1] == pytest.approx(0.0)
     assert co2.report is report  # no analysis while dragging
 
@@ -185,7 +187,9 @@ def test_bad_typed_value_keeps_last_good_route(co2):
     row = co2.legs.rows[2]
     row.T.value = "warm"
     assert co2.route is good
-    assert "warm" in row.error.value and row.T.value == "warm"
+    # the field shows the route being analysed; what was typed is shown beside it, marked
+    assert row.T.value == "20.00" and "warm" in row.error.value
+    assert "pp-rejected" in row.T._dom_classes and "keeps 20.00" in row.error.value
     row.T.value = "-250 degC"  # below every model of CO2
     assert co2.route is good
     assert "-250 degC" in row.error.value
@@ -200,9 +204,10 @@ def test_typed_start_and_out_of_range_click(co2):
     co2.start_btn.click()
     assert co2.route.start.T == 250.0 and co2.route.start.p == pytest.approx(3e5)
     co2.leg_kind = "isotherm"
+    co2.diagram.set_window(200.0, 300.0, 1e5, 1e11)
     click(co2, -23.15, 1e5)  # 100 kbar: above the highest pressure of CO2's models
-    assert len(co2.route.legs) == 0 and "Pa" in co2.message
-    assert len(co2.diagram.corners.x) == 1  # the refused point is taken off the diagram
+    assert len(co2.route.legs) == 0 and "bar" in co2.message
+    assert len(co2.diagram.corners.x) == 1  # nothing of the refused point is drawn
 
 
 def test_units_switch_converts_table_and_fields(co2):
@@ -278,7 +283,7 @@ def test_valve_letdown_lands_on_the_eos_end_state_and_draws_its_true_path(co2):
     co2.leg_kind = "isenthalp"
     click(co2, 0.0, 1.01325)  # the click sets only the pressure: 1 atm
     (leg,) = co2.route.legs
-    assert leg.kind == "isenthalp" and leg.given == {"p": "1.013 bar"}
+    assert leg.kind == "isenthalp" and leg.given == {"p": "1 atm"}  # snapped to 1 atm
     rep = co2.report
     T_end, p_end = co2.route.corners()[1]
     # the corner is where the EOS puts it, not where the mouse was (0 degC)
@@ -331,7 +336,7 @@ def test_sealed_vessel_by_fill_density_flags_liquid_full(co2):
     )
     co2.leg_kind = "isochore"
     click(co2, 40.0, 3.0)  # the click sets only the temperature
-    assert co2.route.legs[0].given == {"T": "40.0 degC"}
+    assert co2.route.legs[0].given == {"T": "40 degC"}
     T1, p1 = co2.route.corners()[1]
     assert T1 == pytest.approx(313.15)
     assert p1 == pytest.approx(CP.PropsSI("P", "T", 313.15, "D", 600, "CO2"), rel=1e-6)
