@@ -482,8 +482,9 @@ class RoutePlanner(PointerEvents, Documents, W.VBox):
         rep = self.report if self._valid else None
         with self._quiet():
             for view, c in self.canvases.items():
+                states = self._states if self._valid else []
                 shape = shapes.view_shape(
-                    view, self._corners, self._states, self._path, self._line_pT(), rep
+                    view, self._corners, states, self._path, self._line_pT(), rep
                 )
                 self._view_crossings[view] = shape.records
                 c.set_route(shape.corners, shape.line, shape.crossings, self._valid, self.selected)

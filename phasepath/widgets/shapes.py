@@ -44,8 +44,9 @@ def view_shape(
     line_pT: Sequence[tuple[float, float]],
     report: Report | None,
 ) -> Shape:
-    """The route in ``view``; ``report`` None draws the sketch of a drawing the core refused
-    (on P–T only: the corners joined by straight lines)."""
+    """The route in ``view``. Without a report: on P–T the corners joined by straight lines (a
+    sketch, also of a drawing the core refused); on p–h and T–s the corners whose states are
+    known (a start alone)."""
     if view == "pT":
         if report is None:
             return Shape(list(corners), as_arrays(list(corners)))
@@ -55,9 +56,9 @@ def view_shape(
             [(c.T, c.p) for c in report.crossings],
             list(report.crossings),
         )
-    if report is None:
-        return Shape([], (_EMPTY, _EMPTY))
     shown = [coordinates(st, view) if st is not None else None for st in states]
+    if report is None:  # a start alone, or a drawing the core refused (no states then)
+        return Shape(shown, (_EMPTY, _EMPTY))
     out = Shape(shown, view_arrays(list(path), view))
     for c in report.crossings:
         xy = crossing_xy(path, c, view)
@@ -76,11 +77,15 @@ def crossing_xy(path: Sequence[StatePoint], c: Crossing, view: str) -> tuple[flo
 
 
 def corner_states(route: Route | None, report: Report | None) -> list[StatePoint | None]:
-    """The state at each corner: the start and every leg's end (after a crossing at a corner,
-    the state the next leg starts from); only the start's without legs."""
+    """The state at each corner: the start and every leg's end (a curved or event-ended leg's
+    own end state, such as a valve's outlet; else the state the next leg starts from); only
+    the start's without legs."""
     if report is not None:
         out: list[StatePoint | None] = [report.legs[0].start]
-        return out + [leg.end for leg in report.legs]
+        for k, leg in enumerate(report.legs):  # a curved leg's own end (a valve's outlet)
+            own = route.legs[k].state if route is not None and k < len(route.legs) else None
+            out.append(own if own is not None and own.h is not None else leg.end)
+        return out
     if route is not None:
         try:
             return [route.end_state()]
