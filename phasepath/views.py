@@ -240,7 +240,7 @@ def _solid_fluid(
         t, q = float(t), float(q)
         try:
             s_state = phase_state(sub, t, q, "solid", b.solid_form or sub.solids.form_at(t, q))
-            f_state = phase_state(sub, t, q, fluid or sub.fluid_phase(t * (1 + 1e-12), q))
+            f_state = phase_state(sub, t, q, fluid or _dense_phase(sub, t, q))
         except (NoModelError, OutOfRangeError):
             continue
         solid.append(s_state)
@@ -250,6 +250,15 @@ def _solid_fluid(
         _line(view, b.kind, f"solid side of the {name} branch", solid, b.solid_form),
         _line(view, b.kind, f"fluid side of the {name} branch", other, b.solid_form),
     ]
+
+
+def _dense_phase(sub: Substance, T: float, p: float) -> str:
+    """The fluid beside a melting branch: liquid below the critical temperature, supercritical
+    above it (the dense fluid, even where the branch starts at the triple point)."""
+    T_c, p_c = sub.critical
+    if T < T_c or not math.isfinite(T_c):
+        return "liquid"
+    return "supercritical" if p > p_c else "vapor"
 
 
 # -- the state at a point of a view -----------------------------------------------------------

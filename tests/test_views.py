@@ -219,3 +219,15 @@ def test_unknown_view_of_a_report_is_refused(co2):
     rep = pp.Route("CO2", T=250.0, p=20e5).isobar(T=300.0).analyze()
     with pytest.raises(pp.PhasePathError, match="unknown view"):
         rep.path("hs")
+
+
+def test_melting_lines_start_at_the_ends_of_the_triple_point_line(co2):
+    by = {c.label: c for c in views.curves(co2, "ph")}
+    (triple,) = [c for c in views.curves(co2, "ph") if c.kind == "triple"]
+    h_solid, h_liquid, _ = triple.x
+    fluid = by["fluid side of the melting branch"]
+    solid = by["solid side of the melting branch"]
+    assert fluid.x[0] == pytest.approx(h_liquid, rel=1e-6)  # the liquid beside the solid
+    assert solid.x[0] == pytest.approx(h_solid, rel=1e-6)
+    assert fluid.y[0] == pytest.approx(co2.triple[1], rel=1e-9)
+    assert np.all(np.diff(fluid.y) > 0)  # up the melting curve

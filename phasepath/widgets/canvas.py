@@ -65,6 +65,9 @@ _CSS = """
 <style>
 .pp-diagram path.line, .pp-diagram text, .pp-diagram .label { pointer-events: none; }
 .pp-diagram .plotarea_events { cursor: crosshair; }
+/* the crossings (the last mark, before the legend) are drawn above the corners and let the
+   pointer through, so a corner under a crossing can still be dragged */
+.pp-diagram svg.svg-figure > g > g:first-of-type > g:nth-last-child(2) { pointer-events: none; }
 .pp-diagram.pp-pan .plotarea_events { cursor: move; }
 .pp-readout { font-size: 12px; color: #333; min-height: 18px; font-variant-numeric: tabular-nums;
   padding: 0 0 0 76px; white-space: nowrap; overflow: hidden; text-overflow: ellipsis; }
@@ -201,8 +204,7 @@ class ViewCanvas:
             stroke=STYLE["crossing"]["stroke"],
             stroke_width=1.2,
             default_size=60,
-            enable_hover=True,
-            tooltip=W.HTML(),
+            enable_hover=False,
         )
         self.figure = bq.Figure(
             marks=self._marks(),

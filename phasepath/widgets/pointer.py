@@ -21,7 +21,6 @@ from ..units import STANDARD_ATMOSPHERE, convert
 from ..views import AXES, state_at
 from . import clicks, drawing, events
 from .coords import event_pixel, from_view, unit_of
-from .panels import crossing_tip
 from .readout import coordinate_text, in_display_units, state_text
 from .snap import snap_linear, snap_log
 
@@ -80,7 +79,6 @@ class PointerEvents:
             c.on_drag_end = self._page_drag_end
             c.on_drag = self._page_drag
             c.corners.on_hover(lambda _m, e, v=view: self._hover_corner(v, e))
-            c.crossings.on_hover(lambda _m, e, v=view: self._hover_crossing(v, e))
 
     # -- clicks ------------------------------------------------------------------------------
     def _page_click(self, view: str, event: dict[str, Any]) -> None:
@@ -243,25 +241,6 @@ class PointerEvents:
         body = html.escape(state_text(st, self.units)) if st is not None else ""
         canvas.corners.tooltip.value = (
             f"<div class='pp-tip'><b>corner {'S' if i == 0 else i}</b><br>{body}</div>"
-        )
-
-    def _hover_crossing(self, view: str, event: dict[str, Any]) -> None:
-        k = events.event_index(event)
-        rep = self.report
-        crossings = self._view_crossings.get(view, []) if rep is not None else []
-        if k is None or k >= len(crossings):
-            return
-        c = crossings[k]
-        u = self.units
-        self.canvases[view].crossings.tooltip.value = (
-            "<div class='pp-tip'>"
-            + html.escape(crossing_tip(c, u))
-            + (f"<br>{html.escape(c.detail)}" if c.detail else "")
-            + "".join(
-                f"<br>⚠ {html.escape(h.kind)}: {html.escape(in_display_units(h.reason, u))}"
-                for h in c.hazards
-            )
-            + "</div>"
         )
 
 
