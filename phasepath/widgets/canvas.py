@@ -220,7 +220,7 @@ class ViewCanvas:
         self.figure.add_class(f"pp-view-{self.view}")
         self.readout = W.HTML("<div class='pp-readout'>&nbsp;</div>")
         self.css = W.HTML(_CSS, layout=W.Layout(height="0px", overflow="hidden"))
-        self.box = W.VBox([self.figure, self.readout], layout=W.Layout(flex="1 1 0", min_width="0"))
+        self.box = W.VBox([self.figure, self.readout], layout=W.Layout(min_width="0"))
         self._pan = bq.interacts.PanZoom(scales={"x": [self.sx], "y": [self.sy]})
         self.clicks = ipyevents.Event(source=self.figure, watched_events=["click", "mouseleave"])
         self.moves = ipyevents.Event(

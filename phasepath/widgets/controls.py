@@ -193,7 +193,8 @@ def arrange(pl: RoutePlanner) -> list[Any]:
     )
     side = W.VBox([pl.start_box, pl.legs], layout=W.Layout(flex="0 0 400px", padding="0 0 0 12px"))
     c = pl.canvases
-    c["pT"].box.layout.flex = "0 0 auto"  # full width of the column, its own height
+    for view in ("ph", "Ts"):  # side by side, sharing the width
+        c[view].box.layout.flex = "1 1 0"
     lower = W.HBox([c["ph"].box, c["Ts"].box], layout=W.Layout(width="100%"))
     plots = W.VBox(
         [c["pT"].box, pl.legend, lower, pl.energy_legend, c["pT"].css],
