@@ -22,6 +22,8 @@ from .readout import minus, state_parts
 
 __all__ = ["LegList"]
 
+_BATCH = 8  # rows made at a time
+
 
 def _hint(kind: str) -> str:
     """What a typed target may be for a leg kind (placeholder of the add-a-leg field)."""
@@ -80,6 +82,10 @@ class LegList(W.VBox):
                 self.add_error,
             ]
         )
+        self.empty = W.HTML(
+            "<span style='font-size:12px;color:#555'>Click on any diagram to place the start, "
+            "then click again for each leg, or type a start above.</span>"
+        )
         super().__init__(children=[self.header], layout=W.Layout(min_width="340px"))
         self.add_class("pp-legs")
 
@@ -103,8 +109,9 @@ class LegList(W.VBox):
         )
         events = list(events or [""] * len(corners))
         states = list(states or [None] * len(corners))
-        while len(self._rows) < len(corners):
-            self._rows.append(_Row(len(self._rows), self))
+        while len(self._rows) < len(corners):  # rows are made ahead, in batches, hidden:
+            for _ in range(_BATCH):  # a new corner then shows a row instead of making one
+                self._rows.append(_Row(len(self._rows), self))
         self.rejected = {k: v for k, v in self.rejected.items() if k[0] < len(corners)}
         self._shown: dict[tuple[int, str], str] = {}
         self._quiet = True
@@ -130,19 +137,16 @@ class LegList(W.VBox):
                     row.box.remove_class("pp-selected")
         finally:
             self._quiet = False
-        rows = [r.box for r in self._rows[: len(corners)]]
-        if not corners:
-            rows = [
-                W.HTML(
-                    "<span style='font-size:12px;color:#555'>Click on any diagram to place the "
-                    "start, then click again for each leg, or type a start above.</span>"
-                )
-            ]
-        else:
-            rows.append(self.add_box)
+        for k, r in enumerate(self._rows):
+            display = None if k < len(corners) else "none"
+            if r.box.layout.display != display:
+                r.box.layout.display = display
+        self.empty.layout.display = "none" if corners else None
+        self.add_box.layout.display = None if corners else "none"
+        children = [self.header, self.empty, *(r.box for r in self._rows), self.add_box]
         shown: list[W.Widget] = list(getattr(self, "children", ()))
-        if shown != [self.header, *rows]:
-            self.children = [self.header, *rows]
+        if shown != children:
+            self.children = children
 
     def _mark(self, i: int) -> None:
         """Show the rejected entries of row i beside its fields, marked, with the reason."""
@@ -181,7 +185,7 @@ class LegList(W.VBox):
     @property
     def rows(self) -> list[_Row]:
         """The rows in use (for tests)."""
-        return [r for r in self._rows if r.box in self.children]
+        return [r for r in self._rows if r.box.layout.display != "none"]
 
     def _edited(self, index: int, coord: str, typed: str) -> None:
         if self._quiet:

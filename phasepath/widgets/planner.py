@@ -23,6 +23,7 @@ redraws once.
 from __future__ import annotations
 
 import contextlib
+import functools
 import html
 from collections.abc import Iterator
 from typing import Any
@@ -523,15 +524,8 @@ class RoutePlanner(PointerEvents, Documents, W.VBox):
         custom = [n for n in registered() if n]
         if self._sub.name not in custom and not self._sub.named:
             custom.append(self._sub.name)
-        self._by_name = {}
-        shown = []
-        for name in _substances():
-            if fluid_info(name, "pure") != "true":
-                continue  # blends are not pure substances: not offered
-            label = display_name(name)
-            self._by_name[label] = name
-            shown.append(label)
-        return tuple(custom + sorted(shown, key=str.lower))
+        shown, self._by_name = _reference_names()
+        return tuple(custom) + shown
 
     @contextlib.contextmanager
     def _quiet(self) -> Iterator[None]:
@@ -578,6 +572,14 @@ def _evaluate(spec: drawing.Spec) -> tuple[Route | None, Report | None, str]:
             f"phasepath could not analyse this route ({type(exc).__name__}: {exc}); the "
             f"drawing is kept. Please report this route.",
         )
+
+
+@functools.lru_cache(maxsize=1)
+def _reference_names() -> tuple[tuple[str, ...], dict[str, str]]:
+    """The pure reference substances by their plain names, and name -> CoolProp name (blends
+    are not pure substances: not offered)."""
+    by_name = {display_name(n): n for n in _substances() if fluid_info(n, "pure") == "true"}
+    return tuple(sorted(by_name, key=str.lower)), by_name
 
 
 def _key_of(sub: Substance) -> Any:

@@ -71,6 +71,9 @@ class PointerEvents:
             keep_fields: bool = False,
         ) -> str: ...
         def _redraw(self) -> None: ...
+        def _quiet(self) -> Any: ...
+
+        selected: int | None
 
     def _connect_pointer(self) -> None:
         for view, c in self.canvases.items():
@@ -191,7 +194,8 @@ class PointerEvents:
             self._say(str(exc))
             self._redraw()
             return
-        self.select(i)
+        with self._quiet():  # the selection is drawn with the moved route: one redraw
+            self.selected = i
         if "density" in edit:
             self._commit(drawing.copy_with_start(self._spec, **edit))
             return

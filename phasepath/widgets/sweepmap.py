@@ -177,8 +177,8 @@ class SweepMap(W.VBox):
             tooltip=W.HTML(),
             interactions={"hover": "tooltip", "click": "select"},
         )
-        bad = [(i, self._given_position(i)) for i in failed]
-        bad = [(i, xy) for i, xy in bad if xy is not None]
+        given = [(i, self._given_position(i)) for i in failed]
+        bad = [(i, xy) for i, xy in given if xy is not None]
         self.failed_rows = [i for i, _ in bad]
         fx, fy = self.canvas.display([xy[0] for _, xy in bad], [xy[1] for _, xy in bad])
         self.failed = bq.Scatter(

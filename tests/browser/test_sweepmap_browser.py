@@ -36,7 +36,8 @@ def test_sweep_map_hover_and_click_open_the_route(page, sweepmap_url, artifacts)
     )
     page.mouse.click(x, y)
     page.wait_for_function(
-        "() => document.querySelectorAll('.pp-legs .pp-row').length == 2", timeout=60_000
+        "() => Array.from(document.querySelectorAll('.pp-legs .pp-row')).filter(e => e.offsetParent !== null).length == 2",
+        timeout=60_000,
     )
     page.wait_for_timeout(500)
     page.screenshot(path=str(artifacts / "sweepmap-opened-route.png"), full_page=True)
