@@ -512,6 +512,12 @@ _PLANNER_NB = {
     "nbformat": 4,
     "nbformat_minor": 5,
 }
+#: The number of corner rows shown in the leg list (rows made ahead are hidden).
+VISIBLE_ROWS = (
+    "Array.from(document.querySelectorAll('.pp-legs .pp-row'))"
+    ".filter(e => e.offsetParent !== null).length"
+)
+
 _DRAWN = (
     "() => ['pT', 'ph', 'Ts'].every(v => { const f = document.querySelector('.pp-view-' + v); "
     "return f && f.querySelectorAll('path.line').length > 2 && "
@@ -659,9 +665,7 @@ def section_planner_latency(clicks: int, drags: int) -> list[str]:
             y = area[1] + 0.55 * area[3]
             count = "() => document.querySelectorAll('table.pp-legsum tr.pp-leg').length"
             page.mouse.click(area[0] + 0.15 * area[2], y)
-            page.wait_for_function(
-                "() => Array.from(document.querySelectorAll('.pp-legs .pp-row')).filter(e => e.offsetParent !== null).length"
-            )
+            page.wait_for_function("() => " + VISIBLE_ROWS)
             click_times = []
             for k in range(clicks):
                 x = area[0] + (0.2 + 0.7 * (k + 1) / (clicks + 1)) * area[2]

@@ -23,6 +23,12 @@ import pytest
 
 pytestmark = pytest.mark.browser
 
+#: The number of corner rows shown in the leg list (rows made ahead are hidden).
+VISIBLE_ROWS = (
+    "Array.from(document.querySelectorAll('.pp-legs .pp-row'))"
+    ".filter(e => e.offsetParent !== null).length"
+)
+
 _CALIBRATE = """(view) => {
   const fig = document.querySelector('.pp-view-' + view);
   const out = {x: [], y: []};
@@ -100,9 +106,7 @@ def _rows(page, selector: str) -> list[dict[str, str]]:
 
 
 def _corner_rows(page) -> int:
-    return page.evaluate(
-        "() => Array.from(document.querySelectorAll('.pp-legs .pp-row')).filter(e => e.offsetParent !== null).length"
-    )
+    return page.evaluate("() => " + VISIBLE_ROWS)
 
 
 def test_ten_clicks_20_ms_apart_give_ten_corners(page, voila_url, artifacts):
@@ -138,16 +142,12 @@ def _draw_vent(page) -> None:
     page.locator(".pp-planner input[placeholder='T, e.g. 25 degC']").fill("20 degC")
     page.locator(".pp-planner input[placeholder='p, e.g. 1 bar']").fill("60 bar")
     page.get_by_role("button", name="place start").click()
-    page.wait_for_function(
-        "() => Array.from(document.querySelectorAll('.pp-legs .pp-row')).filter(e => e.offsetParent !== null).length == 1"
-    )
+    page.wait_for_function("() => " + VISIBLE_ROWS + " == 1")
     add = page.locator(".pp-legs select").first
     add.select_option(label="constant h")
     _type(page, page.locator(".pp-legs input[placeholder^='end p']"), "1 atm")
     page.get_by_role("button", name="add", exact=True).click()
-    page.wait_for_function(
-        "() => Array.from(document.querySelectorAll('.pp-legs .pp-row')).filter(e => e.offsetParent !== null).length == 2"
-    )
+    page.wait_for_function("() => " + VISIBLE_ROWS + " == 2")
     add.select_option(label="constant p")
     target = page.locator(".pp-legs input[placeholder^='T, or until']")
     target.fill("-20 degC")

@@ -11,6 +11,12 @@ import pytest
 
 pytestmark = pytest.mark.browser
 
+#: The number of corner rows shown in the leg list (rows made ahead are hidden).
+VISIBLE_ROWS = (
+    "Array.from(document.querySelectorAll('.pp-legs .pp-row'))"
+    ".filter(e => e.offsetParent !== null).length"
+)
+
 
 def test_sweep_map_hover_and_click_open_the_route(page, sweepmap_url, artifacts):
     page.goto(sweepmap_url, wait_until="domcontentloaded", timeout=120_000)
@@ -36,7 +42,7 @@ def test_sweep_map_hover_and_click_open_the_route(page, sweepmap_url, artifacts)
     )
     page.mouse.click(x, y)
     page.wait_for_function(
-        "() => Array.from(document.querySelectorAll('.pp-legs .pp-row')).filter(e => e.offsetParent !== null).length == 2",
+        "() => " + VISIBLE_ROWS + " == 2",
         timeout=60_000,
     )
     page.wait_for_timeout(500)
