@@ -362,6 +362,12 @@ class ViewCanvas:
     def label_grid(self) -> tuple[int, int]:
         return 22, 16
 
+    def small_labels(
+        self, grid: list[list[str | None]], xs: np.ndarray, ys: np.ndarray, spots: dict[str, Any]
+    ) -> list[tuple[float, float, str]]:
+        """Labels of regions too small for their name inside them (SI points and texts)."""
+        return []
+
     def place_labels(self) -> None:
         """Write each region's name where it has room, inside the window."""
         if self.substance is None:
@@ -374,6 +380,10 @@ class ViewCanvas:
         texts = sorted(spots)
         lx = [float(xs[spots[k][1]]) for k in texts]
         ly = [float(ys[spots[k][0]]) for k in texts]
+        for ex, ey, text in self.small_labels(grid, xs, ys, spots):
+            lx.append(ex)
+            ly.append(ey)
+            texts.append(text)
         x, y = self.display(lx, ly)
         with self.regions.hold_sync():
             self.regions.x, self.regions.y, self.regions.text = x, y, texts

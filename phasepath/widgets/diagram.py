@@ -93,6 +93,24 @@ class PhaseDiagram(ViewCanvas):
             return "SOLID"
         return phase.upper()
 
+    def small_labels(
+        self, grid: list[list[str | None]], xs: np.ndarray, ys: np.ndarray, spots: dict[str, Any]
+    ) -> list[tuple[float, float, str]]:
+        """A named solid (one of water's ices) whose field is too small for its name gets it
+        beside the field, pointing at it ("◂ ICE III"), where the cells right of it are free."""
+        out = []
+        names = {k for row in grid for k in row if k and k not in spots and " " in k}
+        ny, nx = len(grid), len(grid[0]) if grid else 0
+        for name in sorted(names):
+            rows = sorted({i for i in range(ny) for j in range(nx) if grid[i][j] == name})
+            for i in rows:  # the first row whose cells right of the field are fluid
+                j = max(j for j in range(nx) if grid[i][j] == name)
+                beside = grid[i][j + 1 : j + 5]
+                if len(beside) == 4 and all(k and " " not in k for k in beside):
+                    out.append((float(xs[j + 2]), float(ys[i]), f"◂ {name}"))
+                    break
+        return out
+
     def redraw_static(self) -> None:
         super().redraw_static()
         sub = self.substance
