@@ -23,6 +23,9 @@ What is measured
    from Python, as the browser's drag-end message does) and, unless ``--quick``, the
    click-to-table time of the real-browser test.
 5. Peak resident memory of a 1,000-route batch (``pp.analyze_many``) in a fresh process.
+6. The planner in a real browser (Voila and headless chromium, unless ``--quick``): from opening
+   the page to the three drawn diagrams, with and without Voila's pre-started kernels; the median
+   click-to-table and drag-end-to-table times.
 """
 
 # ruff: noqa: E402, B023  (imports after the path fallback; closures are timed where made)
@@ -490,13 +493,241 @@ def section_memory(n: int) -> list[str]:
     return lines + [""]
 
 
+_PLANNER_NB = {
+    "cells": [
+        {
+            "cell_type": "code",
+            "execution_count": None,
+            "id": "planner",
+            "metadata": {},
+            "outputs": [],
+            "source": "import phasepath as pp\n"
+            "planner = pp.widgets.RoutePlanner('CO2', T_unit='degC', p_unit='bar')\n"
+            "planner",
+        }
+    ],
+    "metadata": {
+        "kernelspec": {"display_name": "Python 3", "language": "python", "name": "python3"}
+    },
+    "nbformat": 4,
+    "nbformat_minor": 5,
+}
+#: The number of corner rows shown in the leg list (rows made ahead are hidden).
+VISIBLE_ROWS = (
+    "Array.from(document.querySelectorAll('.pp-legs .pp-row'))"
+    ".filter(e => e.offsetParent !== null).length"
+)
+
+_DRAWN = (
+    "() => ['pT', 'ph', 'Ts'].every(v => { const f = document.querySelector('.pp-view-' + v); "
+    "return f && f.querySelectorAll('path.line').length > 2 && "
+    "f.querySelectorAll('g.axis g.tick text').length > 4; })"
+)
+
+
+def _voila(home: Path, extra: list[str]) -> tuple[subprocess.Popen[bytes], str]:
+    """A Voila server of the planner notebook on 127.0.0.1 (stopped by the caller)."""
+    import json
+    import socket
+    import urllib.error
+    import urllib.request
+
+    nb = home / "planner_bench.ipynb"
+    nb.write_text(json.dumps(_PLANNER_NB))
+    env = dict(os.environ)
+    for var in ("JUPYTER_CONFIG_DIR", "JUPYTER_RUNTIME_DIR", "JUPYTER_DATA_DIR", "IPYTHONDIR"):
+        (home / var.lower()).mkdir(exist_ok=True)
+        env[var] = str(home / var.lower())
+    env["PYTHONPATH"] = os.pathsep.join([str(REPO), env.get("PYTHONPATH", "")]).rstrip(os.pathsep)
+    with socket.socket() as sock:
+        sock.bind(("127.0.0.1", 0))
+        port = sock.getsockname()[1]
+    proc = subprocess.Popen(
+        [
+            sys.executable,
+            "-m",
+            "voila",
+            "--no-browser",
+            f"--port={port}",
+            "--Voila.ip=127.0.0.1",
+            "--Voila.port_retries=0",
+            *extra,
+            str(nb),
+        ],
+        cwd=home,
+        env=env,
+        stdout=subprocess.DEVNULL,
+        stderr=subprocess.DEVNULL,
+    )
+    base = f"http://127.0.0.1:{port}"
+    deadline = time.monotonic() + 90
+    while time.monotonic() < deadline:
+        try:
+            urllib.request.urlopen(base + "/voila/static/voila.js", timeout=2)
+            break
+        except urllib.error.HTTPError:
+            break
+        except OSError:
+            time.sleep(0.3)
+    return proc, base + "/"
+
+
+def _stop(proc: subprocess.Popen[bytes]) -> None:
+    import psutil
+
+    children = psutil.Process(proc.pid).children(recursive=True)
+    proc.terminate()
+    try:
+        proc.wait(timeout=15)
+    except subprocess.TimeoutExpired:
+        proc.kill()
+    for child in children:
+        try:
+            child.wait(timeout=5)
+        except psutil.TimeoutExpired:
+            child.kill()
+        except psutil.NoSuchProcess:
+            pass
+
+
+def _first_view(browser: object, url: str) -> float:
+    page = browser.new_page(viewport={"width": 1440, "height": 1100})  # type: ignore[attr-defined]
+    page.route("**/cdn.jsdelivr.net/**", lambda r: r.abort())
+    t = time.perf_counter()
+    page.goto(url, wait_until="commit", timeout=120_000)
+    page.wait_for_function(_DRAWN, timeout=120_000, polling=20)
+    dt = time.perf_counter() - t
+    page.close()
+    return dt
+
+
+def section_planner_latency(clicks: int, drags: int) -> list[str]:
+    """The planner in headless chromium under Voila: first view, click-to-table and
+    drag-end-to-table (the table of legs updated in the page)."""
+    import tempfile
+
+    lines = ["6. Planner in a real browser (Voila + headless chromium)", ""]
+    chromium = shutil.which("chromium")
+    try:
+        from playwright.sync_api import sync_playwright
+    except ImportError:
+        chromium = None
+    if chromium is None:
+        return lines + ["   not measured: no chromium or no Playwright here", ""]
+    args = [
+        "--headless",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--disable-quic",
+        "--no-first-run",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+    ]
+    with tempfile.TemporaryDirectory() as tmp, sync_playwright() as p:
+        browser = p.chromium.launch(executable_path=chromium, args=args)
+        firsts: dict[str, list[float]] = {}
+        for name, extra in (
+            ("new kernel", []),
+            ("pre-started kernel", ["--preheat_kernel=True", "--pool_size=1"]),
+        ):
+            home = Path(tmp) / name.replace(" ", "-")
+            home.mkdir()
+            proc, url = _voila(home, extra)
+            try:
+                times = []
+                for _ in range(3):
+                    if extra:
+                        time.sleep(20.0)  # the pool's kernel runs the notebook before it serves
+                    times.append(_first_view(browser, url))
+                firsts[name] = times
+            finally:
+                _stop(proc)
+        for name, times in firsts.items():
+            lines.append(
+                f"   first view (page opened -> three diagrams drawn), {name}: median "
+                f"{statistics.median(times):.2f} s over {len(times)} loads"
+            )
+        home = Path(tmp) / "latency"
+        home.mkdir()
+        proc, url = _voila(home, [])
+        try:
+            page = browser.new_page(viewport={"width": 1440, "height": 1100})
+            page.route("**/cdn.jsdelivr.net/**", lambda r: r.abort())
+            page.goto(url, wait_until="domcontentloaded", timeout=120_000)
+            page.wait_for_function(_DRAWN, timeout=120_000)
+            page.wait_for_timeout(500)
+            area = page.evaluate(
+                "() => { const a = document.querySelector('.pp-view-pT rect.plotarea_events')"
+                ".getBoundingClientRect(); return [a.left, a.top, a.width, a.height]; }"
+            )
+            page.get_by_role("button", name="constant p").click()
+            y = area[1] + 0.55 * area[3]
+            count = "() => document.querySelectorAll('table.pp-legsum tr.pp-leg').length"
+            page.mouse.click(area[0] + 0.15 * area[2], y)
+            page.wait_for_function("() => " + VISIBLE_ROWS)
+            click_times = []
+            for k in range(clicks):
+                x = area[0] + (0.2 + 0.7 * (k + 1) / (clicks + 1)) * area[2]
+                t = time.perf_counter()
+                page.mouse.click(x, y)
+                page.wait_for_function(f"() => ({count})() >= {k + 1}", polling=5)
+                click_times.append(time.perf_counter() - t)
+            # drags: the last corner up and down (its isobar leg follows); the end of the drag
+            # (mouse up) to the legs table showing the new pressure
+            page.get_by_role("button", name="constant T").click()
+            x_last = area[0] + (0.2 + 0.7 * clicks / (clicks + 1)) * area[2]
+            page.mouse.click(x_last, area[1] + 0.3 * area[3])
+            page.wait_for_function(f"() => ({count})() >= {clicks + 1}", polling=5)
+            cell = "table.pp-legsum tr.pp-leg:last-child td.pp-c-p1"
+            drag_times = []
+            for k in range(drags):
+                before = page.inner_text(cell)
+                y0 = area[1] + (0.3 if k % 2 == 0 else 0.2) * area[3]
+                y1 = area[1] + (0.2 if k % 2 == 0 else 0.3) * area[3]
+                page.mouse.move(x_last, y0)
+                page.mouse.down()
+                page.mouse.move(x_last, (y0 + y1) / 2, steps=3)
+                page.mouse.move(x_last, y1, steps=3)
+                t = time.perf_counter()
+                page.mouse.up()
+                page.wait_for_function(
+                    "([sel, old]) => { const c = document.querySelector(sel); "
+                    "return c && c.textContent !== old; }",
+                    arg=[cell, before],
+                    polling=5,
+                    timeout=30_000,
+                )
+                drag_times.append(time.perf_counter() - t)
+            page.close()
+        finally:
+            _stop(proc)
+            browser.close()
+    lines.append(
+        f"   click-to-table: median {statistics.median(click_times) * 1e3:.0f} ms over "
+        f"{len(click_times)} clicks (target 100 ms)"
+    )
+    lines.append(
+        f"   drag-end-to-table: median {statistics.median(drag_times) * 1e3:.0f} ms over "
+        f"{len(drag_times)} drags (target 60 ms)"
+    )
+    return lines + [""]
+
+
 def main(argv: list[str] | None = None) -> int:
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument(
         "--quick", action="store_true", help="fewer repeats, a 200-route batch, no browser"
     )
     ap.add_argument("--no-browser", action="store_true", help="skip the real-browser figure")
+    ap.add_argument(
+        "--planner", action="store_true", help="only the planner in a real browser (section 6)"
+    )
     args = ap.parse_args(argv)
+    if args.planner:
+        for line in section_planner_latency(clicks=15, drags=15):
+            print(line, flush=True)
+        return 0
     repeats, scan_repeats = (15, 3) if args.quick else (101, 9)
     print(
         f"phasepath {pp.__version__} benchmarks  (python {sys.version.split()[0]}, "
@@ -511,6 +742,9 @@ def main(argv: list[str] | None = None) -> int:
         print(line, flush=True)
     for line in section_memory(200 if args.quick else 1000):
         print(line, flush=True)
+    if not (args.quick or args.no_browser):
+        for line in section_planner_latency(clicks=15, drags=15):
+            print(line, flush=True)
     return 0
 
 

@@ -583,31 +583,38 @@ NOTEBOOKS["planner.ipynb"] = [
     ("md", """\
 # Route planner
 
-Draw a compression and heating route on a substance's pressure–temperature phase diagram and read,
-leg by leg, where it boils, condenses, melts, freezes, sublimes, deposits or goes supercritical.
+Draw a compression and heating route on three linked views of a substance's phase diagram —
+pressure–temperature, pressure–enthalpy and temperature–entropy — and read, leg by leg, where it
+boils, condenses, melts, freezes, sublimes, deposits or goes supercritical.
 
 **How to use the planner below**
 
-* Pick a substance (type to filter); substances you built in this session with
-  `pp.Substance.from_data` are listed first. Choose the display units.
-* *draw* mode: the first click places the start; each further click adds a leg of the kind chosen:
-  **constant T** (an isotherm: only the pressure of the click is used), **constant p** (an isobar:
-  only its temperature), **constant v** (a sealed vessel: the click sets the end temperature),
-  **constant h** (a valve or vent) and **constant s** (an ideal compressor or expander): the click
-  sets the end pressure. **auto** picks constant T or constant p from the click's direction. For a
-  curved leg the corner lands where the equation of state puts the end state, and the line follows
-  the leg's true path, along the saturation curve while the state is two-phase.
+* Pick a substance by its plain name (type to filter: `carbon dioxide (CO2)`, `water (H2O)`);
+  substances you built in this session with `pp.Substance.from_data` are listed first. Choose
+  the display units (entropy follows the energy unit).
+* *draw* mode: the first click on any of the three views places the start; each further click
+  adds a leg of the kind chosen: **constant T**, **constant p**, **constant v** (a sealed
+  vessel), **constant h** (a valve or vent) and **constant s** (an ideal compressor). **auto**
+  picks the kind that runs straight in the view you click: constant T or p on P–T, constant p or
+  h on p–h, constant T or s on T–s. Clicks snap to a round value at the current zoom (20 °C,
+  5 bar, 1 atm); hold Shift or Alt for the exact point. For a curved leg the corner lands where
+  the equation of state puts the end state, and every view draws the leg's true path.
 * **ends**: leave it empty to end a constant-p or constant-T leg at the click, or pick an event
-  (*fully vapor*, *first liquid*, *first solid*, *5 K superheat*, …; type another number of kelvin).
-* Drag a corner to try another pressure or temperature: the legs on either side stay true to their
-  kind. Type exact values in the leg list, or type a whole new leg under it (kind, target or
-  `until fully vapor`). The start's p field also takes a fill density (`450 kg/m3`).
-  **undo**, **redo**, **clear**, and the trash button per corner.
-* *pan/zoom* mode: drag to pan, scroll to zoom; **fit** brings the whole route back.
-* Hover a crossing mark or a table row to see its conditions. The tables show what happens at each
-  crossing, the vapor and solid fractions at the end of each leg and the hazard flags (⚠); the
-  cautions box lists their cautions. **files** prepares the route file and the tables as CSV;
-  **PNG** and **SVG** save the diagram."""),
+  (*fully vapor*, *first liquid*, *first solid*, *5 K superheat*, …).
+* Move the pointer over a view: the line under it reads the state there (T, p, phase and ice form,
+  h, s, density, vapor or solid fraction). Click a corner to select it in every view; drag it in
+  any view to move it in all (on p–h a drag sets p and h; each leg keeps what its kind holds).
+* The leg list shows every corner with its state. Type exact values there, or a whole new leg
+  under it (kind, target or `until fully vapor`); values are read as engineers write them
+  (`−20 °C`, `5 barg`, `ambient`). A value that is refused stays beside its field, marked, with
+  the reason, and the field keeps the route being analysed. The start box also takes a fill
+  density (`450 kg/m3`) or a quality. **undo**, **redo**, **clear**, the trash button per corner.
+* Give the route a title and notes; **open route file** loads a saved route (also
+  `planner.load_route(path)`); **files** prepares the route file and the tables as CSV; **PNG**
+  and **SVG** save the three diagrams.
+* *pan/zoom* mode: drag to pan, scroll to zoom; **fit** shows the route and the curves it reaches.
+* The tables show what happens at each crossing, the vapor and solid fractions at the end of each
+  leg and the hazard flags (⚠); the cautions box lists their cautions."""),
     ("md", """\
 > **Cautions.** The numbers are model values for planning, not a safety assessment. Compressed
 > gases and liquids store energy: vessels, lines and relief devices must be rated for the route's
@@ -679,6 +686,116 @@ solvent = pp.Substance.from_data(
     "demo solvent K-12", triple=(180.0, None), critical=(560.0, 4.5e6),
     vapor_points=[(300.0, 5.0e3), (325.0, 1.6e4), (350.0, 4.0e4)])
 print(solvent.name in pp.widgets.RoutePlanner("CO2").picker.options)"""),
+]
+
+
+# -- the dry-ice window of a vent line (sweep map) -------------------------------------------------
+NOTEBOOKS["dry_ice_window.ipynb"] = [
+    ("md", """\
+# The dry-ice window of a CO₂ vent line
+
+**Scenario (invented for this demo).** *Harrowgate Cold Chain* vents its CO₂ buffer vessel
+**BV-12** to the atmosphere through a hand valve and a short vent line, **VL-4**, before
+maintenance. The valve is a throttle: constant enthalpy from the vessel to 1 atm. Let down from
+the wrong vessel conditions, the stream leaves the valve as **dry-ice snow** with its vapor, and
+the snow can pack the vent line and its silencer. We want the *window*: from which vessel
+temperatures and pressures does the valve outlet stay free of solid, and how much solid leaves
+it elsewhere?"""),
+    ("md", SAFETY.format(hazards=(
+        "Vented CO₂ displaces oxygen and can asphyxiate in enclosed or low-lying spaces; dry ice "
+        "and the cold vent line cause cold burns; a plugged vent line can let go suddenly; the "
+        "vessel is a pressure vessel and must stay within its rating while it is warmed."))),
+    ("code", SETUP),
+    ("md", """\
+## The plan and the sweep
+
+One leg: the valve, from the vessel state to 1 atm. The sweep varies the vessel's temperature
+(10 °C to 55 °C) and pressure (50 bar to 110 bar) over a grid of 70 vessel states and analyses
+each let-down (``pp.sweep``); one row per state."""),
+    ("code", """\
+plan = pp.Route("CO2", T="20 degC", p="60 bar", title="BV-12 vent through VL-4").isenthalp(p="1 atm")
+sweep = pp.sweep(
+    plan,
+    start_T=[f"{t} degC" for t in range(10, 56, 5)],
+    start_p=[f"{q} bar" for q in range(50, 111, 10)],
+    progress=False,
+)
+print(len(sweep), "vessel states;", (sweep["error"] == "").sum(), "analysed")"""),
+    ("md", """\
+## Solid fraction at the valve outlet
+
+The mass fraction of dry ice leaving the valve, by vessel temperature (rows) and pressure
+(columns); *dry* marks an outlet of vapor only."""),
+    ("code", """\
+temps = sorted(set(sweep["start_T"]))
+pressures = sorted(set(sweep["start_p"]))
+print("T [°C] \\\\ p [bar]" + "".join(f"{F.pressure(q, 'bar'):>8}" for q in pressures))
+for t in temps:
+    cells = []
+    for q in pressures:
+        row = sweep[(sweep["start_T"] == t) & (sweep["start_p"] == q)].iloc[0]
+        x = row["end_solid_fraction"]
+        cells.append(f"{'dry' if x != x else F.fraction(x):>8}")
+    print(f"{F.temperature(t, 'degC'):>16}" + "".join(cells))"""),
+    ("md", """\
+## The map
+
+The same sweep on the P–T diagram: each square is a vessel state, coloured by the solid fraction
+at the valve outlet. Hover a square for its row; click it to open that let-down in a planner
+(with its p–h and T–s views) under the map."""),
+    ("code", """\
+# NBVAL_IGNORE_OUTPUT
+pp.widgets.SweepMap(sweep, color="end_solid_fraction", T_unit="degC", p_unit="bar")"""),
+    ("md", """\
+The outlet is dry only where the vessel holds warm gas: the let-down then stays on the vapor side
+of the two-phase dome and of the sublimation curve. A vessel of liquid, or of dense
+supercritical CO₂, throttles into the dome and down to the triple point, where the liquid that
+is left freezes: the outlet carries snow. The phase at the outlet, by category:"""),
+    ("code", """\
+# NBVAL_IGNORE_OUTPUT
+pp.widgets.SweepMap(sweep, color="end_phase", T_unit="degC", p_unit="bar")"""),
+    ("md", """\
+## The operating window
+
+For each vessel pressure, the lowest vessel temperature of the grid from which the outlet is dry,
+and the margin that leaves above the vessel's own condensation temperature. We take the window
+one grid step (5 K) above that edge."""),
+    ("code", """\
+co2 = pp.substance("CO2")
+window = []
+for q in pressures:
+    dry = sorted(t for t in temps
+                 if (row := sweep[(sweep["start_T"] == t) & (sweep["start_p"] == q)].iloc[0])[
+                     "end_phase"] == "vapor")
+    if not dry:
+        print(f"{F.pressure(q, 'bar')} bar: no dry let-down on this grid")
+        continue
+    edge = dry[0]
+    sat = co2.vapor.temperatures_at(q)[0].root if q < co2.critical[1] else None
+    margin = "" if sat is None else f", {F.temperature(edge - sat, 'K')} K above saturation"
+    print(f"{F.pressure(q, 'bar')} bar: dry from {F.temperature(edge, 'degC')} °C{margin}")
+    window.append((q, edge + 5.0))"""),
+    ("md", """\
+The window goes into the plan's notes, so that the route file the crew opens in the planner
+carries it (``planner.load_route(...)`` shows the notes beside the title)."""),
+    ("code", """\
+lines = [f"at {F.pressure(q, 'bar')} bar: vent only with the vessel at or above "
+         f"{F.temperature(t, 'degC')} °C" for q, t in window]
+notes = ("Dry-ice window of VL-4 (from a sweep of vessel states; valve outlet free of solid): "
+         + "; ".join(lines) + ". Below it the outlet carries dry-ice snow: do not vent; warm "
+         "the vessel first, within its rating.")
+vent = pp.Route.from_dict({**plan.to_dict(), "notes": notes})
+print(vent.title)
+print(vent.notes)"""),
+    ("code", """\
+# NBVAL_IGNORE_OUTPUT
+planner = pp.widgets.RoutePlanner(vent, T_unit="degC", p_unit="bar")
+planner"""),
+    ("md", """\
+**What the map does not say.** The valve is taken as an ideal throttle and the vent line as
+adiabatic; a long or cold line, a silencer or a partly open valve change the outlet. The grid is
+5 K by 10 bar: confirm the edge with a finer sweep near the chosen window, and follow local codes
+and licensed practice for venting CO₂."""),
 ]
 
 

@@ -12,6 +12,8 @@ its plain data (``Substance.to_dict``).
 True
 >>> "CarbonDioxide" in substances() and len(substances()) > 100
 True
+>>> display_name("CO2"), display_name("water"), display_name("R134a")
+('carbon dioxide (CO2)', 'water (H2O)', 'R134a (C2H2F4)')
 """
 
 from __future__ import annotations
@@ -25,11 +27,11 @@ from functools import cache, lru_cache
 from typing import Any
 
 from . import datasheet, reference
-from .eos import fluid_aliases, fluid_names
+from .eos import fluid_aliases, fluid_info, fluid_names
 from .errors import PhasePathError, UnknownSubstanceError, shown
 from .substances import Substance
 
-__all__ = ["substance", "substances", "from_data", "from_dict", "registered"]
+__all__ = ["substance", "substances", "from_data", "from_dict", "registered", "display_name"]
 
 # Common names that CoolProp's alias lists do not already hold.
 _EXTRA_ALIASES = {
@@ -182,3 +184,63 @@ def from_dict(data: Mapping[str, Any]) -> Substance:
     if key:
         _BY_RECIPE[key] = sub
     return sub
+
+
+_PREFIXES = ("Iso", "Cyclo", "Neo", "Para", "Ortho")  # written together with the next word
+# Formulas as people write them where that is not the Hill order, or where the reference
+# library gives none (common practice).
+_FORMULAS = {
+    "Ammonia": "NH3",
+    "Chlorine": "Cl2",
+    "HydrogenChloride": "HCl",
+    "SulfurDioxide": "SO2",
+    "SulfurHexafluoride": "SF6",
+    "CarbonylSulfide": "COS",
+    "ParaHydrogen": "H2",
+    "OrthoHydrogen": "H2",
+    "ParaDeuterium": "D2",
+    "OrthoDeuterium": "D2",
+    "Tetrahydrofuran": "C4H8O",
+    "VinylChloride": "C2H3Cl",
+    "n-Perfluorobutane": "C4F10",
+    "n-Perfluoropentane": "C5F12",
+    "n-Perfluorohexane": "C6F14",
+}
+
+
+def display_name(name: object) -> str:
+    """A substance's plain name with its formula, as people write it: "carbon dioxide (CO2)",
+    "water (H2O)", "n-propane (C3H8)"; a refrigerant or siloxane keeps its code ("R134a (C2H2F4)",
+    "MD2M (C10H30O3Si4)"); the formula is written in Hill order (carbon, hydrogen, then the
+    other elements alphabetically) and left out where the reference library gives none. A
+    substance built from data is shown by its own name."""
+    sub = substance(name)
+    if not sub.named:
+        return sub.name
+    code = sub.name
+    if re.fullmatch(r"(R|RC)\d.*|[A-Z0-9()]+|HFE\w*|SES\w*|Novec\w*", code):
+        plain = code
+    else:
+        words = re.findall(r"[A-Z]?[a-z]+|[^A-Za-z]+|[A-Z]+(?![a-z])", code)
+        out: list[str] = []
+        for w in words:
+            if out and out[-1].capitalize() in _PREFIXES:
+                out[-1] += w.lower()
+            elif out and (not out[-1][-1:].isalpha() or not w[:1].isalpha()):
+                out[-1] += w.lower()
+            else:
+                out.append(w.lower())
+        plain = " ".join(out)
+    formula = _FORMULAS.get(code) or _hill(fluid_info(code, "formula"))
+    return f"{plain} ({formula})" if formula and formula != plain else plain
+
+
+def _hill(raw: str) -> str:
+    """The reference library's formula ("C_{2}F_{4}H_{2}") in Hill order ("C2H2F4")."""
+    atoms = re.findall(r"([A-Z][a-z]?)_\{(\d+)\}", raw or "")
+    if not atoms:
+        return ""
+    count = {el: int(n) for el, n in atoms}
+    first = [el for el in ("C", "H") if el in count] if "C" in count else []
+    order = first + sorted(el for el in count if el not in first)
+    return "".join(el + (str(count[el]) if count[el] != 1 else "") for el in order)

@@ -12,12 +12,14 @@ from typing import TYPE_CHECKING, Any
 
 from . import fileio, htmlreport, tables
 from .format import DisplayUnits
+from .paths import route_path
 from .records import CROSSING_KINDS, Crossing, Hazard, LegSummary, StatePoint
 from .substances import Substance
 
 if TYPE_CHECKING:  # pragma: no cover
     from datetime import datetime
 
+    import numpy as np
     import pandas as pd
 
     from .route import Route
@@ -94,6 +96,22 @@ class Report:
         """One row per leg: kind, start and end states, fractions, heat and work per kg."""
         units = DisplayUnits(T_unit, p_unit, energy_unit)
         return tables.frame(tables.LEGS, self.legs, units)
+
+    def path(self, view: str = "pT") -> tuple[np.ndarray, np.ndarray]:
+        """The route's path in a view, as SI arrays ``(x, y)``: ``"pT"`` (T [K], p [Pa]),
+        ``"ph"`` (h [J/kg], p [Pa]) or ``"Ts"`` (s [J/(kg K)], T [K]); curved legs along their
+        true path, every corner and crossing a point of it (:func:`phasepath.paths.route_path`).
+
+        >>> import phasepath as pp
+        >>> rep = pp.Route("water", T="20 degC", p="1 atm").isobar(T="120 degC").analyze()
+        >>> h, p = rep.path("ph")      # an isobar: constant p, across the dome at 100 degC
+        >>> bool((p == 101325.0).all()), round(float(max(h[1:] - h[:-1])) / 1e3, 1)
+        (True, 2256.5)
+
+        The widest step is the boiling at 1 atm: 2256.5 kJ/kg (IAPWS-95 steam tables; from
+        memory).
+        """
+        return route_path(self.substance, self.legs, self.crossings, view)
 
     def to_dict(self) -> dict[str, Any]:
         """Plain data (SI, full precision) for JSON output and regression files."""

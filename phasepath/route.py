@@ -40,7 +40,8 @@ def _parse(
             return ambient_pressure(0.0 if elevation is None else elevation)
         if kind == "density":
             return parse_quantity(value, "density")
-        return parse_temperature(value) if kind == "T" else parse_pressure(value)
+        ambient = ambient_pressure(0.0 if elevation is None else elevation)
+        return parse_temperature(value) if kind == "T" else parse_pressure(value, ambient=ambient)
     except PhasePathError as exc:
         valid = sub.valid_range(kind) if sub is not None and kind in ("T", "p") else None
         raise exc.within(where, value=value, valid=valid) from exc

@@ -377,9 +377,12 @@ def _value(axis: _Axis, v: Any) -> float:
         if m is None:
             raise SweepAxisError(axis.name, v, "is not an elevation in metres", accepted)
         return _value(axis, float(m.group(1)))
-    if isinstance(v, str) and v.strip().lower() == "ambient":
+    if units.is_relative(v):  # "ambient" or a gauge reading
         raise SweepAxisError(
-            axis.name, v, "'ambient' depends on the elevation; give the pressure itself", accepted
+            axis.name,
+            v,
+            "'ambient' and gauge pressures depend on the elevation; give the pressure itself",
+            accepted,
         )
     try:
         if axis.quantity == "temperature":

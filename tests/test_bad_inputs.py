@@ -80,6 +80,7 @@ def _route(name: str, T: Any, p: Any) -> pp.Route:
 
 # -- answer checks --------------------------------------------------------------------------------
 
+
 def _iapws_boiling() -> tuple[float, float]:
     """(T_sat [K], h' [J/kg]) of water at 101325 Pa from the iapws package (IAPWS-95)."""
     iapws = pytest.importorskip("iapws")
@@ -87,8 +88,13 @@ def _iapws_boiling() -> tuple[float, float]:
     return float(sat.T), float(sat.h) * 1e3
 
 
-def _one_crossing(kind: str, T: float | None = None, p: float | None = None, rtol: float = 1e-6,
-                  boundary: str | None = None) -> Callable[[pp.Report], None]:
+def _one_crossing(
+    kind: str,
+    T: float | None = None,
+    p: float | None = None,
+    rtol: float = 1e-6,
+    boundary: str | None = None,
+) -> Callable[[pp.Report], None]:
     def check(rep: pp.Report) -> None:
         assert [c.kind for c in rep.crossings] == [kind], rep.crossings
         c = rep.crossings[0]
@@ -98,6 +104,7 @@ def _one_crossing(kind: str, T: float | None = None, p: float | None = None, rto
             assert c.p == pytest.approx(p, rel=rtol)
         if boundary is not None:
             assert c.boundary == boundary
+
     return check
 
 
@@ -105,6 +112,7 @@ def _no_crossing(end_phase: str) -> Callable[[pp.Report], None]:
     def check(rep: pp.Report) -> None:
         assert rep.crossings == []
         assert rep.legs[-1].end.phase == end_phase
+
     return check
 
 
@@ -222,125 +230,197 @@ _BLANKS = "1 x" + " " * 200_000 + "y"  # made the unit reader's regular expressi
 
 CASES: dict[str, Bad | Good] = {
     # --- substances ---------------------------------------------------------------------------
-    "substance-misspelt": Bad(lambda: pp.substance("nitrogn"), E.UnknownSubstanceError,
-                              ("'nitrogn'", "Nitrogen", *UNKNOWN)),
-    "substance-misspelt-words": Bad(lambda: pp.substance("carbon dioxyde"),
-                                    E.UnknownSubstanceError,
-                                    ("'carbon dioxyde'", "CarbonDioxide", *UNKNOWN)),
+    "substance-misspelt": Bad(
+        lambda: pp.substance("nitrogn"),
+        E.UnknownSubstanceError,
+        ("'nitrogn'", "Nitrogen", *UNKNOWN),
+    ),
+    "substance-misspelt-words": Bad(
+        lambda: pp.substance("carbon dioxyde"),
+        E.UnknownSubstanceError,
+        ("'carbon dioxyde'", "CarbonDioxide", *UNKNOWN),
+    ),
     "substance-None": Bad(lambda: pp.substance(None), E.UnknownSubstanceError, ("None", *UNKNOWN)),
-    "substance-empty": Bad(lambda: pp.Route("", T=300, p=1e5), E.UnknownSubstanceError,
-                           ("''", *UNKNOWN)),
+    "substance-empty": Bad(
+        lambda: pp.Route("", T=300, p=1e5), E.UnknownSubstanceError, ("''", *UNKNOWN)
+    ),
     "substance-number": Bad(lambda: pp.substance(42), E.UnknownSubstanceError, ("42", *UNKNOWN)),
-    "substance-huge-name": Bad(lambda: pp.substance("a" * 1_000_000), E.UnknownSubstanceError,
-                               ("aaaa", "characters", *UNKNOWN), watchdog=60, max_message=400),
+    "substance-huge-name": Bad(
+        lambda: pp.substance("a" * 1_000_000),
+        E.UnknownSubstanceError,
+        ("aaaa", "characters", *UNKNOWN),
+        watchdog=60,
+        max_message=400,
+    ),
     # --- missing and non-finite numbers -------------------------------------------------------
     "T-nan": Bad(lambda: _route("water", math.nan, 1e5), E.NonFiniteError, ("nan", *WATER_T)),
     "T-nan-text": Bad(lambda: _route("water", "NaN", 1e5), E.NonFiniteError, ("'NaN'", *WATER_T)),
     "T-inf": Bad(lambda: _route("water", math.inf, 1e5), E.NonFiniteError, ("inf", *WATER_T)),
-    "p-minus-inf": Bad(lambda: _route("water", 300, -math.inf), E.NonFiniteError,
-                       ("-inf", *WATER_P)),
+    "p-minus-inf": Bad(
+        lambda: _route("water", 300, -math.inf), E.NonFiniteError, ("-inf", *WATER_P)
+    ),
     "T-None": Bad(lambda: _route("water", None, 1e5), E.NonFiniteError, ("None", *WATER_T)),
     "p-None": Bad(lambda: _route("water", 300, None), E.NonFiniteError, ("None", *WATER_P)),
     "T-empty": Bad(lambda: _route("water", "", 1e5), E.NonFiniteError, ("''", *WATER_T)),
     "p-blank": Bad(lambda: _route("water", 300, "   "), E.NonFiniteError, ("'   '", *WATER_P)),
-    "T-huge-int": Bad(lambda: _route("water", 10**400, 1e5), E.NonFiniteError,
-                      ("10000", "too large", *WATER_T)),
-    "T-overflow-text": Bad(lambda: _route("water", "1e400 K", 1e5), E.NonFiniteError,
-                           ("'1e400 K'", *WATER_T)),
-    "p-overflow-after-units": Bad(lambda: _route("water", 300, "1e308 bar"), E.NonFiniteError,
-                                  ("'1e308 bar'", *WATER_P)),
+    "T-huge-int": Bad(
+        lambda: _route("water", 10**400, 1e5), E.NonFiniteError, ("10000", "too large", *WATER_T)
+    ),
+    "T-overflow-text": Bad(
+        lambda: _route("water", "1e400 K", 1e5), E.NonFiniteError, ("'1e400 K'", *WATER_T)
+    ),
+    "p-overflow-after-units": Bad(
+        lambda: _route("water", 300, "1e308 bar"), E.NonFiniteError, ("'1e308 bar'", *WATER_P)
+    ),
     # --- absolute zero and negative pressure --------------------------------------------------
-    "T-zero": Bad(lambda: _route("water", 0, 1e5), E.OutOfRangeError,
-                  ("T=0", "absolute zero", *WATER_T)),
-    "T-negative-K": Bad(lambda: _route("water", -5, 1e5), E.OutOfRangeError,
-                        ("T=-5", "absolute zero", *WATER_T)),
-    "T-below-absolute-zero-degC": Bad(lambda: _route("water", "-300 degC", 1e5),
-                                      E.OutOfRangeError,
-                                      ("'-300 degC'", "absolute zero", *WATER_T)),
-    "p-zero": Bad(lambda: _route("water", 300, 0), E.OutOfRangeError,
-                  ("p=0", "positive", *WATER_P)),
-    "p-negative-bar": Bad(lambda: _route("water", 300, "-1 bar"), E.OutOfRangeError,
-                          ("'-1 bar'", "positive", *WATER_P)),
+    "T-zero": Bad(
+        lambda: _route("water", 0, 1e5), E.OutOfRangeError, ("T=0", "absolute zero", *WATER_T)
+    ),
+    "T-negative-K": Bad(
+        lambda: _route("water", -5, 1e5), E.OutOfRangeError, ("T=-5", "absolute zero", *WATER_T)
+    ),
+    "T-below-absolute-zero-degC": Bad(
+        lambda: _route("water", "-300 degC", 1e5),
+        E.OutOfRangeError,
+        ("'-300 degC'", "absolute zero", *WATER_T),
+    ),
+    "p-zero": Bad(
+        lambda: _route("water", 300, 0), E.OutOfRangeError, ("p=0", "positive", *WATER_P)
+    ),
+    "p-negative-bar": Bad(
+        lambda: _route("water", 300, "-1 bar"),
+        E.OutOfRangeError,
+        ("'-1 bar'", "positive", *WATER_P),
+    ),
     # --- units --------------------------------------------------------------------------------
-    "T-given-in-bar": Bad(lambda: _route("water", "5 bar", 1e5), E.UnitError,
-                          ("'5 bar'", "not a temperature", *WATER_T)),
-    "p-given-in-degC": Bad(lambda: _route("water", 300, "25 degC"), E.UnitError,
-                           ("'25 degC'", "not a pressure", *WATER_P)),
-    "T-unknown-unit": Bad(lambda: _route("water", "300 blorps", 1e5), E.UnitError,
-                          ("'300 blorps'", "unknown unit", *WATER_T)),
-    "p-gauge-unit-refused": Bad(lambda: _route("water", 300, "1 barg"), E.UnitError,
-                                ("'1 barg'", "unknown unit", *WATER_P)),
-    "T-decimal-comma": Bad(lambda: _route("water", "1,5 degC", 1e5), E.UnitError,
-                           ("'1,5 degC'", *WATER_T)),
+    "T-given-in-bar": Bad(
+        lambda: _route("water", "5 bar", 1e5),
+        E.UnitError,
+        ("'5 bar'", "not a temperature", *WATER_T),
+    ),
+    "p-given-in-degC": Bad(
+        lambda: _route("water", 300, "25 degC"),
+        E.UnitError,
+        ("'25 degC'", "not a pressure", *WATER_P),
+    ),
+    "T-unknown-unit": Bad(
+        lambda: _route("water", "300 blorps", 1e5),
+        E.UnitError,
+        ("'300 blorps'", "unknown unit", *WATER_T),
+    ),
+    "p-gauge-below-vacuum": Bad(
+        lambda: _route("water", 300, "-2 barg"),
+        E.OutOfRangeError,
+        ("'-2 barg'", "below vacuum", *WATER_P),
+    ),
+    "T-decimal-comma": Bad(
+        lambda: _route("water", "1,5 degC", 1e5), E.UnitError, ("'1,5 degC'", *WATER_T)
+    ),
     "T-list": Bad(lambda: _route("water", [300], 1e5), E.UnitError, ("[300]", *WATER_T)),
     "T-bool": Bad(lambda: _route("water", True, 1e5), E.UnitError, ("True", *WATER_T)),
     "T-code-in-unit-text": Bad(_injection_call, E.UnitError, ("__import__", *WATER_T)),
-    "T-long-blank-run": Bad(lambda: _route("water", _BLANKS, 1e5), E.UnitError,
-                            ("unknown unit", "characters", *WATER_T), watchdog=20,
-                            max_message=600),
+    "T-long-blank-run": Bad(
+        lambda: _route("water", _BLANKS, 1e5),
+        E.UnitError,
+        ("unknown unit", "characters", *WATER_T),
+        watchdog=20,
+        max_message=600,
+    ),
     "table-unknown-display-unit": Bad(
-        lambda: _water_isobar(300, 400).analyze().table(T_unit="C"), E.UnitError,
-        ("'C'", "K, degC, degF")),
+        lambda: _water_isobar(300, 400).analyze().table(T_unit="C"),
+        E.UnitError,
+        ("'C'", "K, degC, degF"),
+    ),
     # --- outside the models ---------------------------------------------------------------------
-    "T-above-Tmax": Bad(lambda: _route("water", 2500, 1e5), E.OutOfRangeError,
-                        ("T=2500", *WATER_T)),
-    "p-above-pmax": Bad(lambda: _route("water", 300, "2 GPa"), E.OutOfRangeError,
-                        ("'2 GPa'", *WATER_P)),
-    "T-below-lowest-model": Bad(lambda: _route("water", 40, 1e-3), E.OutOfRangeError,
-                                ("T=40", *WATER_T)),
-    "leg-end-above-Tmax": Bad(lambda: _water_isobar(1500, "1800 degC"), E.OutOfRangeError,
-                              ("leg 1", "'1800 degC'", *WATER_T)),
-    "R134a-above-pmax": Bad(lambda: _route("R134a", 300, "100 MPa"), E.OutOfRangeError,
-                            ("'100 MPa'", "R134a", "valid up to 7e+07 Pa")),
+    "T-above-Tmax": Bad(
+        lambda: _route("water", 2500, 1e5), E.OutOfRangeError, ("T=2500", *WATER_T)
+    ),
+    "p-above-pmax": Bad(
+        lambda: _route("water", 300, "2 GPa"), E.OutOfRangeError, ("'2 GPa'", *WATER_P)
+    ),
+    "T-below-lowest-model": Bad(
+        lambda: _route("water", 40, 1e-3), E.OutOfRangeError, ("T=40", *WATER_T)
+    ),
+    "leg-end-above-Tmax": Bad(
+        lambda: _water_isobar(1500, "1800 degC"),
+        E.OutOfRangeError,
+        ("leg 1", "'1800 degC'", *WATER_T),
+    ),
+    "R134a-above-pmax": Bad(
+        lambda: _route("R134a", 300, "100 MPa"),
+        E.OutOfRangeError,
+        ("'100 MPa'", "R134a", "valid up to 7e+07 Pa"),
+    ),
     "CO2-below-triple": Good(_co2_cold, _check_co2_cold),
     "R134a-no-melting-line-noted": Good(lambda: pp.substance("R134a"), _check_no_melting_note),
-    "core-phase-given-text": Bad(lambda: pp.substance("water").phase("300 K", 1e5),
-                                 E.NonFiniteError, ("'300 K'", *WATER_T)),
+    "core-phase-given-text": Bad(
+        lambda: pp.substance("water").phase("300 K", 1e5), E.NonFiniteError, ("'300 K'", *WATER_T)
+    ),
     # --- route structure --------------------------------------------------------------------------
-    "zero-length-isobar": Bad(lambda: _water_isobar(300, "26.85 degC"), E.RouteError,
-                              ("leg 1", "'26.85 degC'", "zero length")),
-    "zero-length-isotherm": Bad(lambda: _route("water", 300, 1e5).isotherm(p="1 bar"),
-                                E.RouteError, ("leg 1", "'1 bar'", "zero length")),
-    "add-wrong-target": Bad(lambda: _route("water", 300, 1e5).add("isobar", p=2e5),
-                            E.RouteError, ("isobar", "'p'")),
-    "add-unknown-kind": Bad(lambda: _route("water", 300, 1e5).add("teleport", T=300),
-                            E.RouteError, ("'teleport'", "isobar", "isotherm")),
+    "zero-length-isobar": Bad(
+        lambda: _water_isobar(300, "26.85 degC"),
+        E.RouteError,
+        ("leg 1", "'26.85 degC'", "zero length"),
+    ),
+    "zero-length-isotherm": Bad(
+        lambda: _route("water", 300, 1e5).isotherm(p="1 bar"),
+        E.RouteError,
+        ("leg 1", "'1 bar'", "zero length"),
+    ),
+    "add-wrong-target": Bad(
+        lambda: _route("water", 300, 1e5).add("isobar", p=2e5), E.RouteError, ("isobar", "'p'")
+    ),
+    "add-unknown-kind": Bad(
+        lambda: _route("water", 300, 1e5).add("teleport", T=300),
+        E.RouteError,
+        ("'teleport'", "isobar", "isotherm"),
+    ),
     "analyze-no-legs": Bad(lambda: _route("water", 300, 1e5).analyze(), E.RouteError, ("no legs",)),
     "ten-thousand-legs": Good(lambda: _long_route().analyze(), _check_long_route, watchdog=300),
     # --- exactly on a boundary (rules from phasepath.analysis) ------------------------------------
     # a leg that ends on the boundary: no crossing, the end keeps the side it arrived from
-    "leg-ends-on-boundary": Good(lambda: _water_isobar(300.0, 373.15, _psat(373.15)).analyze(),
-                                 _no_crossing("liquid")),
+    "leg-ends-on-boundary": Good(
+        lambda: _water_isobar(300.0, 373.15, _psat(373.15)).analyze(), _no_crossing("liquid")
+    ),
     # a start on the boundary takes the side it leaves into: no crossing
-    "start-on-boundary": Good(lambda: _water_isobar(373.15, 400.0, _psat(373.15)).analyze(),
-                              _no_crossing("vapor")),
+    "start-on-boundary": Good(
+        lambda: _water_isobar(373.15, 400.0, _psat(373.15)).analyze(), _no_crossing("vapor")
+    ),
     # a corner on the boundary, the route going on through: one crossing, at the corner
     "corner-on-boundary-through": Good(
         lambda: _water_isobar(300.0, 373.15, _psat(373.15)).isobar(T=400.0).analyze(),
-        _one_crossing("vaporization", T=373.15, p=_psat(373.15), rtol=1e-12)),
+        _one_crossing("vaporization", T=373.15, p=_psat(373.15), rtol=1e-12),
+    ),
     # touching the boundary and turning back is not a crossing
     "corner-on-boundary-turn-back": Good(
         lambda: _water_isobar(300.0, 373.15, _psat(373.15)).isobar(T=320.0).analyze(),
-        _no_crossing("liquid")),
+        _no_crossing("liquid"),
+    ),
     # an isobar at the triple-point pressure: one sublimation at the triple point
     "isobar-through-triple-point": Good(
         lambda: _water_isobar(260.0, 300.0, _tp()[1]).analyze(),
-        _one_crossing("sublimation", T=273.16, p=611.657, rtol=1e-5, boundary="triple point")),
+        _one_crossing("sublimation", T=273.16, p=611.657, rtol=1e-5, boundary="triple point"),
+    ),
     # an isotherm at the triple-point temperature: one condensation at the triple point
     "isotherm-through-triple-point": Good(
         lambda: pp.Route("water", T=_tp()[0], p=100.0).isotherm(p=1e5).analyze(),
-        _one_crossing("condensation", T=273.16, p=611.657, rtol=1e-5)),
+        _one_crossing("condensation", T=273.16, p=611.657, rtol=1e-5),
+    ),
     "isobar-through-critical-point": Good(
-        lambda: _water_isobar(600.0, 700.0, _crit()[1]).analyze(), _check_critical_crossing),
+        lambda: _water_isobar(600.0, 700.0, _crit()[1]).analyze(), _check_critical_crossing
+    ),
     "isotherm-through-critical-point": Good(
         lambda: pp.Route("water", T=_crit()[0], p=1e6).isotherm(p=30e6).analyze(),
-        _check_critical_crossing),
+        _check_critical_crossing,
+    ),
     "isobar-just-above-critical": Good(
-        lambda: _water_isobar(600.0, 700.0, 1.001 * _crit()[1]).analyze(), _check_above_critical),
+        lambda: _water_isobar(600.0, 700.0, 1.001 * _crit()[1]).analyze(), _check_above_critical
+    ),
     # --- states CoolProp refuses ------------------------------------------------------------------
     "leg-ends-at-saturation-exactly": Good(
         lambda: _water_isobar(300.0, _iapws_boiling()[0], 101325.0).analyze(),
-        _check_heat_to_saturation),
+        _check_heat_to_saturation,
+    ),
     "leg-inside-ice": Good(lambda: _water_isobar(250.0, 260.0, 1e5).analyze(), _check_ice_heat),
 }
 
@@ -397,8 +477,15 @@ def test_long_blank_run_is_fast_enough_to_not_hang() -> None:
 
 
 def test_errors_are_value_errors() -> None:
-    for cls in (E.UnknownSubstanceError, E.OutOfRangeError, E.UnitError, E.NonFiniteError,
-                E.RouteError, E.PropertyError, E.RouteFileError):
+    for cls in (
+        E.UnknownSubstanceError,
+        E.OutOfRangeError,
+        E.UnitError,
+        E.NonFiniteError,
+        E.RouteError,
+        E.PropertyError,
+        E.RouteFileError,
+    ):
         assert issubclass(cls, pp.PhasePathError) and issubclass(cls, ValueError)
 
 
@@ -424,10 +511,41 @@ def test_messages_name_the_given_text_not_only_si() -> None:
 def test_catalogue_raises_nothing_raw() -> None:
     # A sweep of odd scalar values through every entry point that takes T or p: only phasepath
     # errors (or a valid route) come back.
-    odd: list[Any] = [None, "", " ", "nan", "inf", "-inf", math.nan, -math.inf, 10**400, -(10**400),
-                      "1e999", "--5 K", "5 K K", "K", "5 degC degC", "5 Pa/K", "0x10 K", "½ K",
-                      "５ K", "5 \u00b0C", b"300", bytearray(b"1"), 1j, [], {}, (), object(),
-                      "5 Pa**0.5", "5e-400 K", "1e-320 bar", -0.0, 0.0, 5e-324]
+    odd: list[Any] = [
+        None,
+        "",
+        " ",
+        "nan",
+        "inf",
+        "-inf",
+        math.nan,
+        -math.inf,
+        10**400,
+        -(10**400),
+        "1e999",
+        "--5 K",
+        "5 K K",
+        "K",
+        "5 degC degC",
+        "5 Pa/K",
+        "0x10 K",
+        "½ K",
+        "５ K",
+        "5 \u00b0C",
+        b"300",
+        bytearray(b"1"),
+        1j,
+        [],
+        {},
+        (),
+        object(),
+        "5 Pa**0.5",
+        "5e-400 K",
+        "1e-320 bar",
+        -0.0,
+        0.0,
+        5e-324,
+    ]
     entry: list[Callable[[Any], Any]] = [
         lambda v: pp.Route("water", T=v, p=1e5),
         lambda v: pp.Route("water", T=300, p=v),

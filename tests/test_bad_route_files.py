@@ -39,66 +39,113 @@ def _with(**changes: Any) -> str:
 
 
 def _yaml_exec(tag: str) -> str:
-    return (f"format: phasepath route file\nversion: 1\nsubstance: {tag} "
-            f"[\"touch {_MARKER}\"]\nstart: {{T: 300, p: 1e5}}\nlegs: []\n")
+    return (
+        f"format: phasepath route file\nversion: 1\nsubstance: {tag} "
+        f'["touch {_MARKER}"]\nstart: {{T: 300, p: 1e5}}\nlegs: []\n'
+    )
 
 
 CASES: dict[str, tuple[str, str | None, tuple[str, ...]]] = {
     # id: (text, format, pieces of text the message holds)
     "empty": ("", "json", ("not valid JSON",)),
     "truncated-json": (_GOOD_JSON[: len(_GOOD_JSON) // 2], "json", ("not valid JSON",)),
-    "truncated-yaml": ("format: phasepath route file\nversion: 1\nstart: {T: 300", "yaml",
-                       ("not valid YAML",)),
+    "truncated-yaml": (
+        "format: phasepath route file\nversion: 1\nstart: {T: 300",
+        "yaml",
+        ("not valid YAML",),
+    ),
     "null-document": ("null", "json", ("one mapping",)),
     "list-document": ("[1, 2]", "json", ("one mapping",)),
     "wrong-format-name": (_with(format="something else"), "json", ("format",)),
     "version-text": (_with(version="1"), "json", ("version",)),
     "version-float": (_with(version=1.0), "json", ("version",)),
     "version-from-future": (_with(version=99), "json", ("version 99",)),
-    "version-huge-int": (_GOOD_JSON.replace('"version": 1', '"version": ' + "9" * 5000), "json",
-                         ("route file",)),
+    "version-huge-int": (
+        _GOOD_JSON.replace('"version": 1', '"version": ' + "9" * 5000),
+        "json",
+        ("route file",),
+    ),
     "substance-list": (_with(substance=["CO2"]), "json", ("substance", "not text")),
-    "substance-unknown": (_with(substance="unobtainium"), "json",
-                          ("substance", "'unobtainium'")),
-    "yaml-substance-no": ("format: phasepath route file\nversion: 1\nsubstance: no\n"
-                          "start: {T: 300, p: 1e5}\nlegs: []\n", "yaml",
-                          ("substance", "quotes")),
+    "substance-unknown": (_with(substance="unobtainium"), "json", ("substance", "'unobtainium'")),
+    "yaml-substance-no": (
+        "format: phasepath route file\nversion: 1\nsubstance: no\n"
+        "start: {T: 300, p: 1e5}\nlegs: []\n",
+        "yaml",
+        ("substance", "quotes"),
+    ),
     "start-list": (_with(start=[300, 1e5]), "json", ("start",)),
     "start-missing-p": (_with(start={"T": 300}), "json", ("start", "missing value")),
-    "start-T-huge-int": (_GOOD_JSON.replace('"40 degC"', "1" + "0" * 5000), "json",
-                         ("route file",)),
+    "start-T-huge-int": (
+        _GOOD_JSON.replace('"40 degC"', "1" + "0" * 5000),
+        "json",
+        ("route file",),
+    ),
     "start-T-1e400": (_GOOD_JSON.replace('"40 degC"', "1e400"), "json", ("start.T", "finite")),
     "start-T-NaN-literal": (_GOOD_JSON.replace('"40 degC"', "NaN"), "json", ("NaN",)),
     "start-T-bool": (_with(start={"T": True, "p": "1 bar"}), "json", ("start.T",)),
-    "start-T-wrong-dimension": (_with(start={"T": "5 bar", "p": "1 bar"}), "json",
-                                ("start.T", "'5 bar'", "not a temperature")),
+    "start-T-wrong-dimension": (
+        _with(start={"T": "5 bar", "p": "1 bar"}),
+        "json",
+        ("start.T", "'5 bar'", "not a temperature"),
+    ),
     "start-p-negative": (_with(start={"T": "40 degC", "p": "-1 bar"}), "json", ("'-1 bar'",)),
-    "yaml-date-as-T": ("format: phasepath route file\nversion: 1\nsubstance: CO2\n"
-                       "start: {T: 2001-12-14, p: 1 bar}\nlegs: []\n", "yaml", ("start.T",)),
+    "yaml-date-as-T": (
+        "format: phasepath route file\nversion: 1\nsubstance: CO2\n"
+        "start: {T: 2001-12-14, p: 1 bar}\nlegs: []\n",
+        "yaml",
+        ("start.T",),
+    ),
     "legs-mapping": (_with(legs={"kind": "isobar"}), "json", ("legs", "list")),
-    "leg-kind-list": (_with(legs=[{"kind": ["isobar"], "T": 300}]), "json",
-                      ("legs[0].kind", "unknown leg kind")),
+    "leg-kind-list": (
+        _with(legs=[{"kind": ["isobar"], "T": 300}]),
+        "json",
+        ("legs[0].kind", "unknown leg kind"),
+    ),
     "leg-kind-unknown": (_with(legs=[{"kind": "warp", "T": 300}]), "json", ("'warp'",)),
     "leg-missing-kind": (_with(legs=[{"T": 300}]), "json", ("legs[0].kind",)),
-    "leg-extra-field": (_with(legs=[{"kind": "isobar", "T": 300, "shell": "rm"}]), "json",
-                        ("'shell'",)),
-    "leg-zero-length": (_with(legs=[{"kind": "isobar", "T": "40 degC"}]), "json",
-                        ("legs[0]", "zero length")),
-    "leg-beyond-model": (_with(legs=[{"kind": "isotherm", "p": "1e12 bar"}]), "json",
-                         ("legs[0]", "'1e12 bar'")),
-    "duplicate-key": (_GOOD_JSON.replace('"version": 1', '"version": 1, "version": 1'), "json",
-                      ("'version' appears twice",)),
+    "leg-extra-field": (
+        _with(legs=[{"kind": "isobar", "T": 300, "shell": "rm"}]),
+        "json",
+        ("'shell'",),
+    ),
+    "leg-zero-length": (
+        _with(legs=[{"kind": "isobar", "T": "40 degC"}]),
+        "json",
+        ("legs[0]", "zero length"),
+    ),
+    "leg-beyond-model": (
+        _with(legs=[{"kind": "isotherm", "p": "1e12 bar"}]),
+        "json",
+        ("legs[0]", "'1e12 bar'"),
+    ),
+    "duplicate-key": (
+        _GOOD_JSON.replace('"version": 1', '"version": 1, "version": 1'),
+        "json",
+        ("'version' appears twice",),
+    ),
     "deep-json-list": ("[" * 100_000 + "]" * 100_000, "json", ("nested too deeply",)),
     "deep-json-object": ('{"a":' * 50_000 + "1" + "}" * 50_000, "json", ("nested",)),
-    "deep-json-inside-legs": (_GOOD_JSON.replace('"legs": [', '"legs": [' + "[" * 5000
-                                                 + "]" * 5000 + ","), "json", ()),
+    "deep-json-inside-legs": (
+        _GOOD_JSON.replace('"legs": [', '"legs": [' + "[" * 5000 + "]" * 5000 + ","),
+        "json",
+        (),
+    ),
     "deep-yaml-flow": ("[" * 100_000 + "]" * 100_000, "yaml", ("nested",)),
-    "yaml-alias-bomb": ("a: &a [x, x, x]\nb: &b [*a, *a, *a]\nc: [*b, *b, *b]\n", "yaml",
-                        ("aliases",)),
-    "yaml-python-apply": (_yaml_exec("!!python/object/apply:os.system"), "yaml",
-                          ("not valid YAML",)),
-    "yaml-python-new": (_yaml_exec("!!python/object/new:subprocess.Popen"), "yaml",
-                        ("not valid YAML",)),
+    "yaml-alias-bomb": (
+        "a: &a [x, x, x]\nb: &b [*a, *a, *a]\nc: [*b, *b, *b]\n",
+        "yaml",
+        ("aliases",),
+    ),
+    "yaml-python-apply": (
+        _yaml_exec("!!python/object/apply:os.system"),
+        "yaml",
+        ("not valid YAML",),
+    ),
+    "yaml-python-new": (
+        _yaml_exec("!!python/object/new:subprocess.Popen"),
+        "yaml",
+        ("not valid YAML",),
+    ),
     "yaml-python-name": ("format: !!python/name:os.system\n", "yaml", ("not valid YAML",)),
     "yaml-unknown-local-tag": ("format: !shell ls\n", "yaml", ("not valid YAML",)),
     "oversized-text": ('{"title": "' + "x" * (MAX_BYTES + 10) + '"}', "json", ("bytes",)),
@@ -154,13 +201,12 @@ def test_round_trip_of_a_good_route() -> None:
 
 # -- fuzzing the loader ---------------------------------------------------------------------------
 
-_FUZZ = settings(max_examples=150, deadline=None,
-                 suppress_health_check=[HealthCheck.too_slow])
+_FUZZ = settings(max_examples=150, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 _json_values = st.recursive(
-    st.none() | st.booleans() | st.integers() | st.floats(allow_nan=False)
-    | st.text(max_size=20),
-    lambda children: st.lists(children, max_size=4)
-    | st.dictionaries(st.text(max_size=8), children, max_size=4),
+    st.none() | st.booleans() | st.integers() | st.floats(allow_nan=False) | st.text(max_size=20),
+    lambda children: (
+        st.lists(children, max_size=4) | st.dictionaries(st.text(max_size=8), children, max_size=4)
+    ),
     max_leaves=20,
 )
 
@@ -180,9 +226,11 @@ def test_fuzz_random_text(text: str, fmt: str | None) -> None:
 
 
 @_FUZZ
-@given(field=st.sampled_from(["format", "version", "substance", "title", "start", "legs",
-                              "extra"]),
-       value=_json_values, fmt=st.sampled_from(["json", "yaml"]))
+@given(
+    field=st.sampled_from(["format", "version", "substance", "title", "start", "legs", "extra"]),
+    value=_json_values,
+    fmt=st.sampled_from(["json", "yaml"]),
+)
 def test_fuzz_one_field_replaced(field: str, value: Any, fmt: str) -> None:
     doc = json.loads(_GOOD_JSON)
     doc[field] = value
@@ -191,11 +239,16 @@ def test_fuzz_one_field_replaced(field: str, value: Any, fmt: str) -> None:
 
 
 @_FUZZ
-@given(leg=st.dictionaries(st.sampled_from(["kind", "T", "p", "until", "x"]), _json_values,
-                           max_size=3),
-       start=st.dictionaries(st.sampled_from(["T", "p", "density"]),
-                             st.one_of(st.floats(), st.integers(), st.text(max_size=12)),
-                             max_size=3))
+@given(
+    leg=st.dictionaries(
+        st.sampled_from(["kind", "T", "p", "until", "x"]), _json_values, max_size=3
+    ),
+    start=st.dictionaries(
+        st.sampled_from(["T", "p", "density"]),
+        st.one_of(st.floats(), st.integers(), st.text(max_size=12)),
+        max_size=3,
+    ),
+)
 def test_fuzz_start_and_legs(leg: dict[str, Any], start: dict[str, Any]) -> None:
     doc = json.loads(_GOOD_JSON)
     doc["start"], doc["legs"] = start, [leg]

@@ -20,10 +20,29 @@ IF97_TOL = 3e-4
 def _sweep() -> list[pp.Route]:
     """Water isotherms from liquid at 60 bar down to vapor at 300 Pa, one per temperature
     (in shuffled order)."""
-    temps = [300.0, 440.0, 330.0, 410.0, 350.0, 280.0, 420.0, 390.0, 310.0, 370.0,
-             430.0, 290.0, 340.0, 380.0, 320.0, 400.0, 360.0, 450.0]
-    return [pp.Route("water", T=T, p=60e5, title=f"isotherm {T:g} K").isotherm(p=300.0)
-            for T in temps]
+    temps = [
+        300.0,
+        440.0,
+        330.0,
+        410.0,
+        350.0,
+        280.0,
+        420.0,
+        390.0,
+        310.0,
+        370.0,
+        430.0,
+        290.0,
+        340.0,
+        380.0,
+        320.0,
+        400.0,
+        360.0,
+        450.0,
+    ]
+    return [
+        pp.Route("water", T=T, p=60e5, title=f"isotherm {T:g} K").isotherm(p=300.0) for T in temps
+    ]
 
 
 def test_serial_reports_match_iapws_if97() -> None:
@@ -60,8 +79,11 @@ def test_dicts_are_accepted() -> None:
 def test_bad_routes_are_each_reported(workers: int | None) -> None:
     good = _sweep()[:2]
     empty = pp.Route("water", T=300.0, p=1e5, title="no legs yet")
-    unknown = {"substance": "unobtainium", "start": {"T": 300.0, "p": 1e5},
-               "legs": [{"kind": "isobar", "T": 400.0}]}
+    unknown = {
+        "substance": "unobtainium",
+        "start": {"T": 300.0, "p": 1e5},
+        "legs": [{"kind": "isobar", "T": 400.0}],
+    }
     batch = [good[0], empty, unknown, good[1]]
     with pytest.raises(BatchError) as info:
         pp.analyze_many(batch, workers=workers, progress=False)

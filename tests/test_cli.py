@@ -68,8 +68,7 @@ def test_analyze_json_matches_iapws(files) -> None:
     doc = json.loads(files[1].read_text(encoding="utf-8"))
     assert doc["format"] == results.FORMAT and doc["version"] == results.VERSION
     kinds = {c["kind"]: c for c in doc["crossings"]}
-    assert kinds["vaporization"]["T"] == pytest.approx(
-        iapws.IAPWS95(P=0.101325, x=0.0).T, abs=1e-3)
+    assert kinds["vaporization"]["T"] == pytest.approx(iapws.IAPWS95(P=0.101325, x=0.0).T, abs=1e-3)
     from iapws._iapws import _Melting_Pressure
 
     T_melt = brentq(lambda T: _Melting_Pressure(T, "Ih") - 0.101325, 272.0, 273.16)
@@ -77,8 +76,9 @@ def test_analyze_json_matches_iapws(files) -> None:
 
 
 def test_analyze_csv(capsys, files) -> None:
-    code, out, _ = run(capsys, "analyze", str(files[0]), "--format", "csv", "--units",
-                       "degF,psi,Btu/lb")
+    code, out, _ = run(
+        capsys, "analyze", str(files[0]), "--format", "csv", "--units", "degF,psi,Btu/lb"
+    )
     assert code == 0
     rows = list(csv.DictReader(stdio.StringIO(out)))
     assert [r["kind"] for r in rows] == ["melting", "vaporization"]
@@ -118,8 +118,9 @@ def test_check_fails_loudly_on_moved_crossing(capsys, files, tmp_path) -> None:
     assert "FAILED" in err  # one loud line on stderr too, for CI logs
 
 
-@pytest.mark.parametrize("dT, tol, code", [(0.004, "0.01", 0), (0.02, "0.01", 1),
-                                            (0.02, "0.05", 0)])
+@pytest.mark.parametrize(
+    "dT, tol, code", [(0.004, "0.01", 0), (0.02, "0.01", 1), (0.02, "0.05", 0)]
+)
 def test_check_tolerance_is_what_it_says(capsys, files, tmp_path, dT, tol, code) -> None:
     def shift(cs):
         cs[0]["T"] += dT
@@ -150,21 +151,33 @@ def test_check_appeared_and_disappeared(capsys, files, tmp_path) -> None:
 
 
 def test_compare_crossings_pairs_in_order() -> None:
-    a = {"step": 1, "kind": "melting", "from_phase": "solid", "to_phase": "liquid", "T": 1.0,
-         "p": 1.0, "latent_heat": None, "boundary": "b"}
+    a = {
+        "step": 1,
+        "kind": "melting",
+        "from_phase": "solid",
+        "to_phase": "liquid",
+        "T": 1.0,
+        "p": 1.0,
+        "latent_heat": None,
+        "boundary": "b",
+    }
     b = {**a, "T": 2.0}
     assert results.compare_crossings([a, b], [a, b]) == []
     diffs = results.compare_crossings([a, b], [a])
     assert [d["status"] for d in diffs] == ["disappeared"] and diffs[0]["expected"] == b
 
 
-@pytest.mark.parametrize("argv, message", [
-    (["analyze", "no-such-file.yaml"], "cannot read the file"),
-    (["analyze", "{route}", "--units", "degC,furlongs"], "unknown display unit 'furlongs'"),
-    (["check", "{route}", "{route}"], "not valid JSON"),
-    (["diagram", "water", "-o", "plot.pdf"], ".svg or .png"),
-    (["diagram", "unobtainium", "-o", "plot.svg"], "unknown substance"),
-], ids=["missing-file", "bad-units", "not-results", "bad-suffix", "bad-substance"])
+@pytest.mark.parametrize(
+    "argv, message",
+    [
+        (["analyze", "no-such-file.yaml"], "cannot read the file"),
+        (["analyze", "{route}", "--units", "degC,furlongs"], "unknown display unit 'furlongs'"),
+        (["check", "{route}", "{route}"], "not valid JSON"),
+        (["diagram", "water", "-o", "plot.pdf"], ".svg or .png"),
+        (["diagram", "unobtainium", "-o", "plot.svg"], "unknown substance"),
+    ],
+    ids=["missing-file", "bad-units", "not-results", "bad-suffix", "bad-substance"],
+)
 def test_errors_are_one_line_exit_2(capsys, files, argv, message) -> None:
     argv = [a.replace("{route}", str(files[0])) for a in argv]
     code, out, err = run(capsys, *argv)
@@ -177,14 +190,27 @@ def test_errors_are_one_line_exit_2(capsys, files, argv, message) -> None:
 def test_diagram_svg_and_png(capsys, files, tmp_path) -> None:
     pytest.importorskip("matplotlib")
     svg = tmp_path / "water.svg"
-    code, _, _ = run(capsys, "diagram", "water", "-o", str(svg), "--route", str(files[0]),
-                     "--units", "degC,bar")
+    code, _, _ = run(
+        capsys, "diagram", "water", "-o", str(svg), "--route", str(files[0]), "--units", "degC,bar"
+    )
     assert code == 0
     text = svg.read_text(encoding="utf-8")
     assert text.lstrip().startswith("<?xml") and "<svg" in text
     svg2 = tmp_path / "again.svg"
-    assert run(capsys, "diagram", "water", "-o", str(svg2), "--route", str(files[0]),
-               "--units", "degC,bar")[0] == 0
+    assert (
+        run(
+            capsys,
+            "diagram",
+            "water",
+            "-o",
+            str(svg2),
+            "--route",
+            str(files[0]),
+            "--units",
+            "degC,bar",
+        )[0]
+        == 0
+    )
     assert svg2.read_text(encoding="utf-8") == text  # reproducible for reports under review
     png = tmp_path / "water.png"
     assert run(capsys, "diagram", "water", "-o", str(png))[0] == 0
@@ -195,11 +221,16 @@ def test_console_script(files) -> None:
     exe = shutil.which("phasepath")
     if exe is None:
         pytest.skip("phasepath is not installed as a command in this environment")
-    proc = subprocess.run([exe, "check", str(files[0]), str(files[1])], capture_output=True,
-                          text=True, timeout=300)
+    proc = subprocess.run(
+        [exe, "check", str(files[0]), str(files[1])], capture_output=True, text=True, timeout=300
+    )
     assert proc.returncode == 0, proc.stderr
-    proc = subprocess.run([sys.executable, "-m", "phasepath.cli", "analyze", "missing.yaml"],
-                          capture_output=True, text=True, timeout=300)
+    proc = subprocess.run(
+        [sys.executable, "-m", "phasepath.cli", "analyze", "missing.yaml"],
+        capture_output=True,
+        text=True,
+        timeout=300,
+    )
     assert proc.returncode == 2 and "Traceback" not in proc.stderr
 
 
@@ -212,6 +243,10 @@ def test_shipped_plan_still_matches_its_expected_results(capsys) -> None:
     from pathlib import Path
 
     routes = Path(__file__).resolve().parents[1] / "notebooks" / "routes"
-    code, out, _ = run(capsys, "check", str(routes / "ex2_staged_letdown.yaml"),
-                       str(routes / "ex2_staged_letdown.expected.json"))
+    code, out, _ = run(
+        capsys,
+        "check",
+        str(routes / "ex2_staged_letdown.yaml"),
+        str(routes / "ex2_staged_letdown.expected.json"),
+    )
     assert code == 0, out

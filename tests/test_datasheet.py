@@ -74,8 +74,15 @@ def _toluene() -> pp.Substance:
         "toluene (Poling Wagner)",
         triple=(Tt(CAS_from_any("toluene"), method="WEBBOOK"), None),
         critical=(float(w.Tc), float(w.Pc)),
-        wagner=dict(form="2.5-5", a=float(w.A), b=float(w.B), c=float(w.C), d=float(w.D),
-                    T_min=float(w.Tmin), T_max=float(w.Tmax)),
+        wagner=dict(
+            form="2.5-5",
+            a=float(w.A),
+            b=float(w.B),
+            c=float(w.C),
+            d=float(w.D),
+            T_min=float(w.Tmin),
+            T_max=float(w.Tmax),
+        ),
         molar_mass="92.138 g/mol",  # C7H8 from IUPAC standard atomic weights (common practice)
         source="chemicals 1.5.2: Psat_data_WagnerPoling",
     )
@@ -87,8 +94,9 @@ def _cyclohexane() -> pp.Substance:
         "cyclohexane (McGarry Wagner)",
         triple=(Tt(CAS_from_any("cyclohexane"), method="WEBBOOK"), None),
         critical=(float(w.Tc), float(w.Pc)),
-        wagner=dict(form="3-6", a=float(w.A), b=float(w.B), c=float(w.C), d=float(w.D),
-                    T_min=float(w.Tmin)),
+        wagner=dict(
+            form="3-6", a=float(w.A), b=float(w.B), c=float(w.C), d=float(w.D), T_min=float(w.Tmin)
+        ),
         simon_glatzel=dict(a=383.4e6, c=1.41),  # Penoncello et al. 1995
         source="chemicals 1.5.2: Psat_data_WagnerMcGarry",
     )
@@ -101,14 +109,18 @@ def _hexane() -> pp.Substance:
         "n-hexane (Poling Antoine)",
         triple=(Tt(cas, method="STAVELEY"), None),
         critical=(Tc(cas, method="IUPAC"), Pc(cas, method="IUPAC")),
-        antoine=dict(A=float(a.A), B=float(a.B), C=float(a.C), T_min=float(a.Tmin),
-                     T_max=float(a.Tmax)),
+        antoine=dict(
+            A=float(a.A), B=float(a.B), C=float(a.C), T_min=float(a.Tmin), T_max=float(a.Tmax)
+        ),
         source="chemicals 1.5.2: Psat_data_AntoinePoling",
     )
 
 
-FLUIDS = {"toluene": (_toluene, "Toluene"), "cyclohexane": (_cyclohexane, "CycloHexane"),
-          "n-hexane": (_hexane, "n-Hexane")}
+FLUIDS = {
+    "toluene": (_toluene, "Toluene"),
+    "cyclohexane": (_cyclohexane, "CycloHexane"),
+    "n-hexane": (_hexane, "n-Hexane"),
+}
 _BUILT: dict[str, pp.Substance] = {}
 
 
@@ -223,8 +235,10 @@ def test_clausius_clapeyron_fit_recovers_enthalpy_with_noise_and_uncertainty() -
     rng = np.random.default_rng(20240508)
     hits = 0
     for _ in range(40):
-        pts = [(T, vp.clausius_clapeyron(T, 330.0, 5e4, dH) * (1 + 0.005 * rng.standard_normal()))
-               for T in np.linspace(280, 380, 8)]
+        pts = [
+            (T, vp.clausius_clapeyron(T, 330.0, 5e4, dH) * (1 + 0.005 * rng.standard_normal()))
+            for T in np.linspace(280, 380, 8)
+        ]
         fit = fit_clausius_clapeyron(pts)
         sd = fit.enthalpy_stderr
         assert 0.0 < sd < 1000.0  # 0.5 % noise over 100 K: a few hundred J/mol
@@ -247,10 +261,12 @@ def test_straight_line_misplaces_boiling_point_antoine_does_not() -> None:
     ref = pp.substance("Toluene")
     pts = [(T, ref.vapor.p_of_T(T)) for T in np.linspace(330.0, 430.0, 6)]
     (T_b,) = [r.root for r in ref.vapor.temperatures_at(101325.0)]
-    line = pp.Substance.from_data("line", critical=ref.critical, triple=(ref.triple[0], None),
-                                  vapor_points=pts[::5])  # two points: the straight line
-    curve = pp.Substance.from_data("curve", critical=ref.critical, triple=(ref.triple[0], None),
-                                   vapor_points=pts)
+    line = pp.Substance.from_data(
+        "line", critical=ref.critical, triple=(ref.triple[0], None), vapor_points=pts[::5]
+    )  # two points: the straight line
+    curve = pp.Substance.from_data(
+        "curve", critical=ref.critical, triple=(ref.triple[0], None), vapor_points=pts
+    )
     T_line = _boiling_on_isobar(line, 101325.0, 383.0).T
     T_curve = _boiling_on_isobar(curve, 101325.0, 383.0).T
     assert curve.source_data.fits["vapor"].form == "antoine"
@@ -258,16 +274,21 @@ def test_straight_line_misplaces_boiling_point_antoine_does_not() -> None:
     assert abs(T_line - T_b) > 0.3
     # the least-squares line through all six points misses by about half a kelvin as well
     cc = curve.source_data.fits["clausius-clapeyron"]
-    T_cc = vp.clausius_clapeyron_temperature(101325.0, cc.params["T_ref"], cc.params["p_ref"],
-                                             cc.params["dH"])
+    T_cc = vp.clausius_clapeyron_temperature(
+        101325.0, cc.params["T_ref"], cc.params["p_ref"], cc.params["dH"]
+    )
     assert 0.3 < abs(T_cc - T_b) < 1.0
     assert any("Clausius-Clapeyron fit of 6 vapor points" in n for n in curve.notes)
 
 
 # -- what is missing is stated, not guessed ------------------------------------------------------
 def _bare() -> pp.Substance:
-    return pp.Substance.from_data("bare", triple=(180.0, None), critical=(560.0, 4.5e6),
-                                  vapor_points=[(300.0, 5e3), (350.0, 4e4)])
+    return pp.Substance.from_data(
+        "bare",
+        triple=(180.0, None),
+        critical=(560.0, 4.5e6),
+        vapor_points=[(300.0, 5e3), (350.0, 4e4)],
+    )
 
 
 def test_missing_pieces_are_stated_and_never_crossed() -> None:
@@ -286,8 +307,7 @@ def test_missing_pieces_are_stated_and_never_crossed() -> None:
 
 
 def test_no_critical_point_ends_the_diagram_at_the_data() -> None:
-    sub = pp.Substance.from_data("short", vapor_points=[(300.0, 5e3), (320.0, 1.2e4),
-                                                        (350.0, 4e4)])
+    sub = pp.Substance.from_data("short", vapor_points=[(300.0, 5e3), (320.0, 1.2e4), (350.0, 4e4)])
     assert math.isnan(sub.critical[0]) and math.isnan(sub.triple[0])
     assert sub.T_min == 300.0 and sub.T_max == 350.0
     assert "critical point" in sub.source_data.missing
@@ -296,10 +316,15 @@ def test_no_critical_point_ends_the_diagram_at_the_data() -> None:
 
 
 def test_sublimation_from_fusion_enthalpy() -> None:
-    sub = pp.Substance.from_data("solid-too", triple=(180.0, None), critical=(560.0, 4.5e6),
-                                 vapor_points=[(300.0, 5e3), (350.0, 4e4)],
-                                 enthalpy_fusion="9 kJ/mol", molar_mass="100 g/mol",
-                                 melting_slope=3e6)
+    sub = pp.Substance.from_data(
+        "solid-too",
+        triple=(180.0, None),
+        critical=(560.0, 4.5e6),
+        vapor_points=[(300.0, 5e3), (350.0, 4e4)],
+        enthalpy_fusion="9 kJ/mol",
+        molar_mass="100 g/mol",
+        melting_slope=3e6,
+    )
     T_t, p_t = sub.triple
     dH_vap = sub.source_data.fits["clausius-clapeyron"].enthalpy()
     assert sub.source_data.enthalpy_sublimation == pytest.approx(9000.0 + dH_vap, rel=1e-6)
@@ -314,9 +339,13 @@ def test_sublimation_from_fusion_enthalpy() -> None:
 
 
 def test_melting_point_and_slope_place_the_triple_point() -> None:
-    sub = pp.Substance.from_data("no-triple", critical=(560.0, 4.5e6),
-                                 vapor_points=[(300.0, 5e3), (350.0, 4e4)],
-                                 melting_point=250.0, melting_slope=2.5e6)
+    sub = pp.Substance.from_data(
+        "no-triple",
+        critical=(560.0, 4.5e6),
+        vapor_points=[(300.0, 5e3), (350.0, 4e4)],
+        melting_point=250.0,
+        melting_slope=2.5e6,
+    )
     T_t, p_t = sub.triple
     assert T_t == pytest.approx(250.0 - (101325.0 - p_t) / 2.5e6, abs=1e-9)
     assert sub.melting[0].p_of_T(250.0) == pytest.approx(101325.0)
@@ -333,30 +362,43 @@ def test_round_trip_through_plain_data() -> None:
     assert again is pp.Substance.from_dict(d)  # identical mappings give one object
     route = pp.Route(d, T=300.0, p=101325.0).isobar(T=400.0)
     assert route.analyze().crossings[0].T == pytest.approx(
-        pp.Route(sub, T=300.0, p=101325.0).isobar(T=400.0).analyze().crossings[0].T, rel=1e-12)
+        pp.Route(sub, T=300.0, p=101325.0).isobar(T=400.0).analyze().crossings[0].T, rel=1e-12
+    )
     assert pp.substance("CO2").to_dict() == {"name": "CarbonDioxide"}
 
 
 def test_public_surface_from_the_issue() -> None:
     sub = pp.Substance.from_data(
-        "my-solvent", triple=(180.0, 1.0), critical=(560.0, 4.5e6),
-        vapor_points=[(280.0, 2.0e3), (320.0, 1.3e4), (360.0, 5.3e4), (400.0, 1.6e5)])
+        "my-solvent",
+        triple=(180.0, 1.0),
+        critical=(560.0, 4.5e6),
+        vapor_points=[(280.0, 2.0e3), (320.0, 1.3e4), (360.0, 5.3e4), (400.0, 1.6e5)],
+    )
     route = pp.Route(sub, T=300.0, p=101325.0)
     assert route.substance is sub
     assert sub.vapor.p_of_T(180.0) == pytest.approx(1.0, rel=1e-9)  # bridged to the triple point
 
 
 # -- bad input names the value and the way out --------------------------------------------------
-@pytest.mark.parametrize("kwargs, match", [
-    (dict(antoine=dict(A=9.0, B=1300.0, C=-55.0, T_min=280.0)), "'T_max' is missing"),
-    (dict(vapor_points=[(300.0, 1e4)]), "enthalpy_vaporization"),
-    (dict(vapor_points=[(300.0, 1e4), (300.0, 2e4)]), "share the temperature 300 K"),
-    (dict(vapor_points=[(300.0, -1.0), (320.0, 2e4)]), "not a positive pressure"),
-    (dict(), "a vapor-pressure curve is needed"),
-    (dict(wagner=dict(form="3-5", a=-7, b=1, c=-2, d=-3, T_min=200)), "form = '3-5'"),
-    (dict(vapor_points=[(300.0, 1e4), (350.0, 5e4)], enthalpy_fusion="9 kJ/kg",
-          triple=(180.0, None)), "unknown unit 'kJ/kg'"),
-])
+@pytest.mark.parametrize(
+    "kwargs, match",
+    [
+        (dict(antoine=dict(A=9.0, B=1300.0, C=-55.0, T_min=280.0)), "'T_max' is missing"),
+        (dict(vapor_points=[(300.0, 1e4)]), "enthalpy_vaporization"),
+        (dict(vapor_points=[(300.0, 1e4), (300.0, 2e4)]), "share the temperature 300 K"),
+        (dict(vapor_points=[(300.0, -1.0), (320.0, 2e4)]), "not a positive pressure"),
+        (dict(), "a vapor-pressure curve is needed"),
+        (dict(wagner=dict(form="3-5", a=-7, b=1, c=-2, d=-3, T_min=200)), "form = '3-5'"),
+        (
+            dict(
+                vapor_points=[(300.0, 1e4), (350.0, 5e4)],
+                enthalpy_fusion="9 kJ/kg",
+                triple=(180.0, None),
+            ),
+            "unknown unit 'kJ/kg'",
+        ),
+    ],
+)
 def test_bad_input_raises_phasepath_error(kwargs: dict, match: str) -> None:
     with pytest.raises(PhasePathError, match=match):
         pp.Substance.from_data("bad", critical=(560.0, 4.5e6), **kwargs)
@@ -382,17 +424,20 @@ def test_route_file_embeds_a_substance_built_from_data(tmp_path) -> None:
         again = io.loads_route(text, fmt)
         assert again.substance.to_dict() == sub.to_dict()
         assert again.analyze().crossings[0].T == pytest.approx(
-            route.analyze().crossings[0].T, rel=1e-12)
+            route.analyze().crossings[0].T, rel=1e-12
+        )
     bad = io.dumps_route(route, "json").replace('"form": "2.5-5"', '"form": "2-5"')
     with pytest.raises(pp.RouteFileError, match="substance"):
         io.loads_route(bad, "json")
 
 
 def test_picked_by_name_after_reference_names() -> None:
-    sub = pp.Substance.from_data("Kestrel test solvent", critical=(560.0, 4.5e6),
-                                 vapor_points=[(300.0, 5e3), (350.0, 4e4)])
+    sub = pp.Substance.from_data(
+        "Kestrel test solvent", critical=(560.0, 4.5e6), vapor_points=[(300.0, 5e3), (350.0, 4e4)]
+    )
     assert pp.substance("Kestrel test solvent") is sub
     assert pp.Route("Kestrel test solvent", T=320.0, p=1e5).substance is sub
-    shadow = pp.Substance.from_data("toluene", critical=(560.0, 4.5e6),
-                                    vapor_points=[(300.0, 5e3), (350.0, 4e4)])
+    shadow = pp.Substance.from_data(
+        "toluene", critical=(560.0, 4.5e6), vapor_points=[(300.0, 5e3), (350.0, 4e4)]
+    )
     assert pp.substance("toluene") is not shadow  # a reference name keeps its substance

@@ -26,12 +26,26 @@ import phasepath as pp
 
 # Routes in invented scenarios, each crossing at least one boundary.
 _PLANS: list[tuple[str, tuple[str, str], list[tuple[str, str]]]] = [
-    ("water", ("20 degC", "1 bar"), [("isobar", "180 degC"), ("isotherm", "0.2 bar"),
-                                     ("isobar", "-25 degC"), ("isotherm", "3000 bar")]),
-    ("CO2", ("-20 degC", "10 bar"), [("isotherm", "90 bar"), ("isobar", "45 degC"),
-                                     ("isotherm", "4 bar")]),
-    ("nitrogen", ("75 K", "1 bar"), [("isotherm", "50 bar"), ("isobar", "150 K"),
-                                     ("isotherm", "0.3 bar")]),
+    (
+        "water",
+        ("20 degC", "1 bar"),
+        [
+            ("isobar", "180 degC"),
+            ("isotherm", "0.2 bar"),
+            ("isobar", "-25 degC"),
+            ("isotherm", "3000 bar"),
+        ],
+    ),
+    (
+        "CO2",
+        ("-20 degC", "10 bar"),
+        [("isotherm", "90 bar"), ("isobar", "45 degC"), ("isotherm", "4 bar")],
+    ),
+    (
+        "nitrogen",
+        ("75 K", "1 bar"),
+        [("isotherm", "50 bar"), ("isobar", "150 K"), ("isotherm", "0.3 bar")],
+    ),
     ("argon", ("90 K", "1 bar"), [("isotherm", "2000 bar"), ("isobar", "200 K")]),
     ("methane", ("110 K", "1 bar"), [("isobar", "200 K"), ("isotherm", "60 bar")]),
     ("R134a", ("-30 degC", "1 bar"), [("isobar", "70 degC"), ("isotherm", "45 bar")]),
@@ -48,16 +62,42 @@ def _build(plan: tuple[str, tuple[str, str], list[tuple[str, str]]]) -> pp.Route
 
 def _fingerprint(rep: pp.Report) -> list[Any]:
     """Every number of a report as exact hex text, with the names around it."""
+
     def h(x: float | None) -> str | None:
         return None if x is None else float(x).hex()
 
     out: list[Any] = [rep.substance.name]
     for c in rep.crossings:
-        out.append([c.step, c.kind, c.from_phase, c.to_phase, c.from_form, c.to_form, h(c.T),
-                    h(c.p), h(c.latent_heat), c.boundary, c.method])
+        out.append(
+            [
+                c.step,
+                c.kind,
+                c.from_phase,
+                c.to_phase,
+                c.from_form,
+                c.to_form,
+                h(c.T),
+                h(c.p),
+                h(c.latent_heat),
+                c.boundary,
+                c.method,
+            ]
+        )
     for g in rep.legs:
-        out.append([g.step, g.kind, h(g.start.T), h(g.start.p), g.start.phase, h(g.end.T),
-                    h(g.end.p), g.end.phase, h(g.heat), h(g.work)])
+        out.append(
+            [
+                g.step,
+                g.kind,
+                h(g.start.T),
+                h(g.start.p),
+                g.start.phase,
+                h(g.end.T),
+                h(g.end.p),
+                g.end.phase,
+                h(g.heat),
+                h(g.work),
+            ]
+        )
     return out
 
 
@@ -81,12 +121,18 @@ def test_same_results_on_repeated_runs() -> None:
 
 def test_same_results_in_a_fresh_process() -> None:
     root = Path(__file__).resolve().parents[1]
-    code = ("import json, sys; sys.path.insert(0, 'tests'); import test_determinism as t; "
-            "print(json.dumps(t._all()))")
-    env = {**os.environ, "PYTHONPATH": str(root) + os.pathsep + os.environ.get("PYTHONPATH", ""),
-           "PYTHONHASHSEED": "12345"}
-    done = subprocess.run([sys.executable, "-c", code], cwd=root, env=env, capture_output=True,
-                          text=True, timeout=600)
+    code = (
+        "import json, sys; sys.path.insert(0, 'tests'); import test_determinism as t; "
+        "print(json.dumps(t._all()))"
+    )
+    env = {
+        **os.environ,
+        "PYTHONPATH": str(root) + os.pathsep + os.environ.get("PYTHONPATH", ""),
+        "PYTHONHASHSEED": "12345",
+    }
+    done = subprocess.run(
+        [sys.executable, "-c", code], cwd=root, env=env, capture_output=True, text=True, timeout=600
+    )
     assert done.returncode == 0, done.stderr[-3000:]
     assert json.loads(done.stdout) == json.loads(json.dumps(_all()))
 

@@ -38,8 +38,12 @@ from hypothesis import strategies as st  # noqa: E402
 import phasepath as pp  # noqa: E402
 from phasepath.analysis import TOLERANCE  # noqa: E402
 
-_COMMON = dict(deadline=None, derandomize=False, print_blob=True,
-               suppress_health_check=[HealthCheck.too_slow, HealthCheck.filter_too_much])
+_COMMON = dict(
+    deadline=None,
+    derandomize=False,
+    print_blob=True,
+    suppress_health_check=[HealthCheck.too_slow, HealthCheck.filter_too_much],
+)
 settings.register_profile("phasepath-default", max_examples=60, **_COMMON)
 settings.register_profile("phasepath-long", max_examples=4000, **_COMMON)
 _PROFILE = "phasepath-long" if os.environ.get("PHASEPATH_FUZZ") == "long" else "phasepath-default"
@@ -48,13 +52,27 @@ _SETTINGS = settings.get_profile(_PROFILE)
 #: Substances fuzzed: water (five ice branches and a sublimation curve), the four whose
 #: sublimation curves phasepath may carry, fluids with a melting line (propane) and without one
 #: in the reference library (R-134a, ammonia).
-SUBSTANCES = ("Water", "CarbonDioxide", "Nitrogen", "Argon", "Methane", "n-Propane", "R134a",
-              "Ammonia")
+SUBSTANCES = (
+    "Water",
+    "CarbonDioxide",
+    "Nitrogen",
+    "Argon",
+    "Methane",
+    "n-Propane",
+    "R134a",
+    "Ammonia",
+)
 
-_INVERSE = {"melting": "freezing", "freezing": "melting", "vaporization": "condensation",
-            "condensation": "vaporization", "sublimation": "deposition",
-            "deposition": "sublimation", "supercritical-entry": "supercritical-exit",
-            "supercritical-exit": "supercritical-entry"}
+_INVERSE = {
+    "melting": "freezing",
+    "freezing": "melting",
+    "vaporization": "condensation",
+    "condensation": "vaporization",
+    "sublimation": "deposition",
+    "deposition": "sublimation",
+    "supercritical-entry": "supercritical-exit",
+    "supercritical-exit": "supercritical-entry",
+}
 _SCAN = 120  # points per leg in the independent scan
 _NUDGE = 1e-7  # relative step beside a crossing where its two phases are read
 
@@ -107,6 +125,7 @@ def _analyze(route: pp.Route) -> pp.Report:
 
 # -- geometry of a leg ---------------------------------------------------------------------------
 
+
 def _leg_points(route: pp.Route, step: int) -> tuple[str, tuple[float, float], tuple[float, float]]:
     corners = route.corners()
     leg = route.legs[step - 1]
@@ -125,13 +144,15 @@ def _at(kind: str, a: tuple[float, float], b: tuple[float, float], u: float) -> 
     return a[0], math.exp(math.log(a[1]) + u * (math.log(b[1]) - math.log(a[1])))
 
 
-def _fraction(kind: str, a: tuple[float, float], b: tuple[float, float], T: float,
-              p: float) -> float:
+def _fraction(
+    kind: str, a: tuple[float, float], b: tuple[float, float], T: float, p: float
+) -> float:
     x0, x1, x = _coord(kind, *a), _coord(kind, *b), _coord(kind, T, p)
     return (x - x0) / (x1 - x0)
 
 
 # -- the properties ---------------------------------------------------------------------------
+
 
 def _check_on_boundary(sub: pp.Substance, route: pp.Route, c: pp.Crossing) -> None:
     T_t, p_t = sub.triple
@@ -324,8 +345,14 @@ _ORDER_SCRIPT = textwrap.dedent("""
 def _run_order(names: list[str]) -> dict[str, Any]:
     root = Path(__file__).resolve().parents[1]
     env = {**os.environ, "PYTHONPATH": str(root) + os.pathsep + os.environ.get("PYTHONPATH", "")}
-    done = subprocess.run([sys.executable, "-c", _ORDER_SCRIPT, *names], capture_output=True,
-                          text=True, timeout=600, env=env, cwd=root)
+    done = subprocess.run(
+        [sys.executable, "-c", _ORDER_SCRIPT, *names],
+        capture_output=True,
+        text=True,
+        timeout=600,
+        env=env,
+        cwd=root,
+    )
     assert done.returncode == 0, done.stderr[-3000:]
     result: dict[str, Any] = json.loads(done.stdout)
     return result

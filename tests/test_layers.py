@@ -58,9 +58,7 @@ HAZARDOUS = {
     # liquid CO2 vented through a valve to 1 atm: dry-ice snow in the line
     "co2-vent": lambda: pp.Route("CO2", T="20 degC", p="60 bar").isenthalp(p="1 atm"),
     # a CO2 cylinder filled to 750 kg/m3 warmed in the sun: liquid-full, sealed pressure
-    "co2-cylinder": lambda: pp.Route("CO2", T="15 degC", density="750 kg/m3").isochore(
-        T="50 degC"
-    ),
+    "co2-cylinder": lambda: pp.Route("CO2", T="15 degC", density="750 kg/m3").isochore(T="50 degC"),
     # nitrogen cooled to 70 K at 1 bar: cryogenic liquid
     "n2-cooled": lambda: pp.Route("N2", T="300 K", p="1 bar").isobar(T="70 K"),
     # water pressed to 300 MPa at room temperature

@@ -33,9 +33,11 @@ legs:
 
 def _routes() -> dict[str, pp.Route]:
     return {
-        "water-units-as-typed": pp.Route("water", T="20 degC", p="1 atm", title="Bench",
-                                         notes="line one\nline two")
-        .isobar(T="120 degC").isotherm(p="3 bar"),
+        "water-units-as-typed": pp.Route(
+            "water", T="20 degC", p="1 atm", title="Bench", notes="line one\nline two"
+        )
+        .isobar(T="120 degC")
+        .isotherm(p="3 bar"),
         "water-numbers-si": pp.Route("water", T=293.15, p=101325).isobar(T=400),
         "co2-valve": pp.Route("CO2", T="40 degC", p="100 bar").isenthalp(p="20 bar"),
         "nitrogen-psi": pp.Route("nitrogen", T="-180 degC", p="14.7 psi").isotherm(p="10 bar"),
@@ -82,32 +84,91 @@ def _line_of(text: str, needle: str) -> int:
 # (id, edit of the YAML text, field named, text the line must contain, message part)
 YAML_CASES = [
     ("unknown-top-field", lambda t: t + "colour: red\n", "colour", "colour: red", "unknown field"),
-    ("unknown-leg-field", lambda t: t.replace("T: 120 degC}", "T: 120 degC, speed: 3}"),
-     "legs[0].speed (leg 1)", "speed: 3", "unknown field"),
-    ("wrong-unit", lambda t: t.replace("p: 3 bar", "p: 3 degC"), "legs[1].p (leg 2)",
-     "p: 3 degC", "is not a pressure"),
-    ("unknown-unit", lambda t: t.replace("T: 120 degC", "T: 120 blorps"),
-     "legs[0].T (leg 1)", "120 blorps", "unknown unit"),
-    ("missing-leg-target", lambda t: t.replace("{kind: isotherm, p: 3 bar}", "{kind: isotherm}"),
-     "legs[1] (leg 2)", "kind: isotherm", "missing value"),
-    ("empty-value", lambda t: t.replace("p: 1 atm}", "p: }"), "start.p", "p: }",
-     "missing value"),
-    ("missing-start", lambda t: t.replace("start: {T: 20 degC, p: 1 atm}\n", ""), "start",
-     None, "required"),
-    ("unknown-kind", lambda t: t.replace("kind: isobar", "kind: isobaric"),
-     "legs[0].kind (leg 1)", "isobaric", "unknown leg kind"),
-    ("two-targets", lambda t: t.replace("T: 120 degC}", "T: 120 degC, until: fully vapor}"),
-     "legs[0].until (leg 1)", "until: fully vapor", "only one"),
-    ("out-of-range", lambda t: t.replace("T: 120 degC", "T: 9000 K"), "legs[0].T (leg 1)",
-     "9000 K", "above the highest temperature"),
-    ("unknown-substance", lambda t: t.replace("substance: water", "substance: unobtainium"),
-     "substance", "unobtainium", "unknown substance"),
-    ("not-text", lambda t: t.replace("substance: water", "substance: NO"), "substance",
-     "substance: NO", "quotes"),
-    ("newer-version", lambda t: t.replace("version: 1", "version: 7"), "version", "version: 7",
-     "newer phasepath"),
-    ("wrong-format", lambda t: t.replace("format: phasepath route file", "format: other"),
-     "format", "format: other", "not a phasepath route file"),
+    (
+        "unknown-leg-field",
+        lambda t: t.replace("T: 120 degC}", "T: 120 degC, speed: 3}"),
+        "legs[0].speed (leg 1)",
+        "speed: 3",
+        "unknown field",
+    ),
+    (
+        "wrong-unit",
+        lambda t: t.replace("p: 3 bar", "p: 3 degC"),
+        "legs[1].p (leg 2)",
+        "p: 3 degC",
+        "is a temperature, not a pressure",
+    ),
+    (
+        "unknown-unit",
+        lambda t: t.replace("T: 120 degC", "T: 120 blorps"),
+        "legs[0].T (leg 1)",
+        "120 blorps",
+        "unknown unit",
+    ),
+    (
+        "missing-leg-target",
+        lambda t: t.replace("{kind: isotherm, p: 3 bar}", "{kind: isotherm}"),
+        "legs[1] (leg 2)",
+        "kind: isotherm",
+        "missing value",
+    ),
+    ("empty-value", lambda t: t.replace("p: 1 atm}", "p: }"), "start.p", "p: }", "missing value"),
+    (
+        "missing-start",
+        lambda t: t.replace("start: {T: 20 degC, p: 1 atm}\n", ""),
+        "start",
+        None,
+        "required",
+    ),
+    (
+        "unknown-kind",
+        lambda t: t.replace("kind: isobar", "kind: isobaric"),
+        "legs[0].kind (leg 1)",
+        "isobaric",
+        "unknown leg kind",
+    ),
+    (
+        "two-targets",
+        lambda t: t.replace("T: 120 degC}", "T: 120 degC, until: fully vapor}"),
+        "legs[0].until (leg 1)",
+        "until: fully vapor",
+        "only one",
+    ),
+    (
+        "out-of-range",
+        lambda t: t.replace("T: 120 degC", "T: 9000 K"),
+        "legs[0].T (leg 1)",
+        "9000 K",
+        "above the highest temperature",
+    ),
+    (
+        "unknown-substance",
+        lambda t: t.replace("substance: water", "substance: unobtainium"),
+        "substance",
+        "unobtainium",
+        "unknown substance",
+    ),
+    (
+        "not-text",
+        lambda t: t.replace("substance: water", "substance: NO"),
+        "substance",
+        "substance: NO",
+        "quotes",
+    ),
+    (
+        "newer-version",
+        lambda t: t.replace("version: 1", "version: 7"),
+        "version",
+        "version: 7",
+        "newer phasepath",
+    ),
+    (
+        "wrong-format",
+        lambda t: t.replace("format: phasepath route file", "format: other"),
+        "format",
+        "format: other",
+        "not a phasepath route file",
+    ),
 ]
 
 
@@ -140,12 +201,16 @@ def test_json_errors_name_field_and_line() -> None:
     assert info.value.line == _line_of(bad, '"extra"')
 
 
-@pytest.mark.parametrize("text, message", [
-    ('{"format": "phasepath route file", "format": "x"}', "appears twice"),
-    ('{"format": NaN}', "NaN is not allowed"),
-    ('{"format": "phasepath route file",\n "version": 1,', "not valid JSON"),
-    ("[1, 2]", "one mapping of fields"),
-], ids=["duplicate-key", "nan", "truncated", "not-a-mapping"])
+@pytest.mark.parametrize(
+    "text, message",
+    [
+        ('{"format": "phasepath route file", "format": "x"}', "appears twice"),
+        ('{"format": NaN}', "NaN is not allowed"),
+        ('{"format": "phasepath route file",\n "version": 1,', "not valid JSON"),
+        ("[1, 2]", "one mapping of fields"),
+    ],
+    ids=["duplicate-key", "nan", "truncated", "not-a-mapping"],
+)
 def test_json_syntax_errors(text: str, message: str) -> None:
     with pytest.raises(RouteFileError, match=message):
         io.loads_route(text, "json")
@@ -220,10 +285,27 @@ def test_written_files_satisfy_the_schema(name: str) -> None:
     assert list(_validator().iter_errors(doc)) == []
 
 
-@pytest.mark.parametrize("case", [c for c in YAML_CASES if c[0] in (
-    "unknown-top-field", "unknown-leg-field", "missing-leg-target", "missing-start",
-    "unknown-kind", "two-targets", "not-text", "newer-version", "wrong-format", "empty-value")],
-    ids=lambda c: c[0])
+@pytest.mark.parametrize(
+    "case",
+    [
+        c
+        for c in YAML_CASES
+        if c[0]
+        in (
+            "unknown-top-field",
+            "unknown-leg-field",
+            "missing-leg-target",
+            "missing-start",
+            "unknown-kind",
+            "two-targets",
+            "not-text",
+            "newer-version",
+            "wrong-format",
+            "empty-value",
+        )
+    ],
+    ids=lambda c: c[0],
+)
 def test_schema_rejects_what_the_reader_rejects(case) -> None:
     doc = yaml.safe_load(case[1](YAML_TEXT))
     assert list(_validator().iter_errors(doc)), case[0]

@@ -171,7 +171,7 @@ def test_density_and_elevation_axes() -> None:
         ({"start_T": np.ones((2, 2))}, "start_T", "not a list of values"),
         ({"start_T": [300.0, math.nan]}, "start_T", "not a finite number"),
         ({"start_T": [True]}, "start_T", "not a number"),
-        ({"start_T": ["20 bar"]}, "start_T", "is not a temperature"),
+        ({"start_T": ["20 bar"]}, "start_T", "is a pressure, not a temperature"),
         ({"start_p": ["60 barg"]}, "start_p", "60 barg"),
         ({"start_p": ["ambient"]}, "start_p", "give the pressure itself"),
         ({"elevation": ["5000 ft"]}, "elevation", "not an elevation in metres"),

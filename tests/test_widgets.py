@@ -40,20 +40,24 @@ pytest.importorskip("bqplot")
 from phasepath.widgets import RoutePlanner  # noqa: E402
 
 
-def click(planner: RoutePlanner, x: float, y: float) -> None:
-    """What the browser does on a click: append the point (display units) to the Scatter."""
-    s = planner.diagram.corners
-    with s.hold_sync(), s.hold_trait_notifications():  # as the page's one message does
-        s.x, s.y = np.append(s.x, float(x)), np.append(s.y, float(y))
+def click(planner: RoutePlanner, x: float, y: float, view: str = "pT", **keys: object) -> None:
+    """What the page sends for a click at (x, y) in display units: one message with its pixel
+    (at whole pixels, as browsers report them), handled as ipyevents hands it over."""
+    canvas = planner.canvases[view]
+    canvas._dom_click(canvas.page_event(x, y, **keys))
 
 
-def drag(planner: RoutePlanner, index: int, x: float, y: float) -> None:
-    """What the browser does at the end of a drag: move one point of the Scatter."""
-    s = planner.diagram.corners
+def drag(planner: RoutePlanner, index: int, x: float, y: float, view: str = "pT") -> None:
+    """What the page sends at the end of a drag of corner ``index``: the mark's point moved
+    (the state update) and the drag-end message with the point."""
+    canvas = planner.canvases[view]
+    k = canvas._index.index(index)
+    s = canvas.corners
     xs, ys = np.array(s.x, dtype=float), np.array(s.y, dtype=float)
-    xs[index], ys[index] = x, y
+    xs[k], ys[k] = x, y
     with s.hold_sync(), s.hold_trait_notifications():
         s.x, s.y = xs, ys
+    planner._page_drag_end(view, {"event": "drag_end", "index": k, "point": {"x": x, "y": y}})
 
 
 @pytest.fixture()
@@ -90,8 +94,8 @@ def test_clicks_draw_true_isotherm_and_isobar(co2):
     assert r.legs[0].p == pytest.approx(40e5, rel=1e-12)
     assert r.legs[1].p == r.legs[0].p  # snapped: a true isobar
     assert r.legs[1].T == pytest.approx(293.15, abs=1e-9)
-    # the user's own units are kept as typed text
-    assert r.legs[0].given == {"p": "40.00 bar"} and r.legs[1].given == {"T": "20.0 degC"}
+    # clicks snap to round values at the zoom, kept as typed text in the user's units
+    assert r.legs[0].given == {"p": "40 bar"} and r.legs[1].given == {"T": "20 degC"}
 
 
 def test_report_is_the_cores_and_matches_published_vapor_pressure(co2):
@@ -160,9 +164,7 @@ def test_drag_keeps_neighbouring_legs_true_and_updates_report(co2):
 def test_drag_preview_moves_only_the_line(co2):
     two_legs(co2)
     report = co2.report
-    co2._dragging(
-        co2.diagram.corners, {"event": "drag", "index": 2, "point": {"x": 0.0, "y": 40.0}}
-    )
+    co2._page_drag("pT", {"event": "drag", "index": 2, "point": {"x": 0.0, "y": 40.0}})
     assert co2.diagram.route_line.x[-1] == pytest.approx(0.0)
     assert co2.report is report  # no analysis while dragging
 
@@ -185,7 +187,9 @@ def test_bad_typed_value_keeps_last_good_route(co2):
     row = co2.legs.rows[2]
     row.T.value = "warm"
     assert co2.route is good
-    assert "warm" in row.error.value and row.T.value == "warm"
+    # the field shows the route being analysed; what was typed is shown beside it, marked
+    assert row.T.value == "20.00" and "warm" in row.error.value
+    assert "pp-rejected" in row.T._dom_classes and "keeps 20.00" in row.error.value
     row.T.value = "-250 degC"  # below every model of CO2
     assert co2.route is good
     assert "-250 degC" in row.error.value
@@ -200,9 +204,10 @@ def test_typed_start_and_out_of_range_click(co2):
     co2.start_btn.click()
     assert co2.route.start.T == 250.0 and co2.route.start.p == pytest.approx(3e5)
     co2.leg_kind = "isotherm"
+    co2.diagram.set_window(200.0, 300.0, 1e5, 1e11)
     click(co2, -23.15, 1e5)  # 100 kbar: above the highest pressure of CO2's models
-    assert len(co2.route.legs) == 0 and "Pa" in co2.message
-    assert len(co2.diagram.corners.x) == 1  # the refused point is taken off the diagram
+    assert len(co2.route.legs) == 0 and "bar" in co2.message
+    assert len(co2.diagram.corners.x) == 1  # nothing of the refused point is drawn
 
 
 def test_units_switch_converts_table_and_fields(co2):
@@ -278,7 +283,7 @@ def test_valve_letdown_lands_on_the_eos_end_state_and_draws_its_true_path(co2):
     co2.leg_kind = "isenthalp"
     click(co2, 0.0, 1.01325)  # the click sets only the pressure: 1 atm
     (leg,) = co2.route.legs
-    assert leg.kind == "isenthalp" and leg.given == {"p": "1.013 bar"}
+    assert leg.kind == "isenthalp" and leg.given == {"p": "1 atm"}  # snapped to 1 atm
     rep = co2.report
     T_end, p_end = co2.route.corners()[1]
     # the corner is where the EOS puts it, not where the mouse was (0 degC)
@@ -331,7 +336,7 @@ def test_sealed_vessel_by_fill_density_flags_liquid_full(co2):
     )
     co2.leg_kind = "isochore"
     click(co2, 40.0, 3.0)  # the click sets only the temperature
-    assert co2.route.legs[0].given == {"T": "40.0 degC"}
+    assert co2.route.legs[0].given == {"T": "40 degC"}
     T1, p1 = co2.route.corners()[1]
     assert T1 == pytest.approx(313.15)
     assert p1 == pytest.approx(CP.PropsSI("P", "T", 313.15, "D", 600, "CO2"), rel=1e-6)
@@ -529,3 +534,284 @@ def test_legend_lists_only_the_curves_drawn() -> None:
     assert "melting" not in ammonia.legend.value and "sublimation" not in ammonia.legend.value
     co2 = pp.widgets.RoutePlanner("CO2")
     assert "melting" in co2.legend.value and "sublimation" in co2.legend.value
+
+
+# -- round 2: three linked views, readout, nothing lost, documents -------------------------------
+# Check values of this part: states from the reference library CoolProp (Span & Wagner 1996 for
+# CO2), called directly through PropsSI, not through phasepath; 1 atm = 101325 Pa (definition,
+# common practice); everything else is compared with what the core computes for the same route.
+
+
+def test_figures_are_the_three_views(co2):
+    bq = pytest.importorskip("bqplot")
+    assert list(co2.figures) == ["pT", "ph", "Ts"]
+    assert all(isinstance(f, bq.Figure) for f in co2.figures.values())
+    assert co2.figures["pT"] is co2.diagram.figure
+    assert co2.canvases["ph"].ay.label == "Pressure [bar]"
+    assert co2.canvases["ph"].ax.label == "Specific enthalpy [kJ/kg]"
+    assert co2.canvases["Ts"].ax.label == "Specific entropy [kJ/(kg K)]"
+    assert isinstance(co2.canvases["ph"].sy, bq.LogScale)  # log pressure on p-h
+    co2.energy_unit = "Btu/lb"
+    assert co2.canvases["Ts"].ax.label == "Specific entropy [Btu/(lb °R)]"
+
+
+def test_crossings_are_drawn_above_the_corners(co2):
+    for c in co2.canvases.values():
+        marks = list(c.figure.marks)
+        assert marks.index(c.crossings) > marks.index(c.corners)
+
+
+def test_a_corner_dragged_on_ph_moves_in_every_view(co2):
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    co2.route = pp.Route("CO2", T="20 degC", p="60 bar").isenthalp(p="10 bar").isobar(T="30 degC")
+    ph = co2.canvases["ph"]
+    k = ph._index.index(1)
+    h1 = ph.drawn[k][0]
+    drag(co2, 1, h1, 20.0, view="ph")  # the valve's end pressure: 20 bar; the valve holds h
+    (_, _), (T1, p1), (T2, p2) = co2.route.corners()
+    assert p1 == pytest.approx(20e5) and p2 == pytest.approx(20e5)  # the isobar follows
+    h0 = CP.PropsSI("H", "T", 293.15, "P", 60e5, "CO2")
+    end = co2.route.legs[0].state  # the valve's outlet
+    assert end.h == pytest.approx(h0, rel=1e-6)
+    # every view shows the new corner: P-T at (T, p), p-h at (h, p), T-s at (s, T)
+    assert co2.diagram.drawn[1] == pytest.approx((T1 - 273.15, 20.0))
+    assert ph.drawn[1] == pytest.approx((end.h / 1e3, 20.0))
+    assert co2.canvases["Ts"].drawn[1] == pytest.approx((end.s / 1e3, T1 - 273.15))
+    assert co2.selected == 1  # the dragged corner is selected in all views
+    assert all(len(c.selected.x) == 1 for c in co2.canvases.values())
+
+
+def test_clicks_on_ph_draw_a_valve_and_an_isobar(co2):
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    click(co2, 250.0, 60.0, view="ph")  # the start: h = 250 kJ/kg at 60 bar
+    T0 = CP.PropsSI("T", "P", 60e5, "H", 250e3, "CO2")
+    assert co2.route.start.p == 60e5
+    assert co2.route.start.T == pytest.approx(T0, abs=0.051)  # to the drawing's 0.1 K
+    click(co2, 250.0, 1.01325, view="ph")  # straight down on p-h: "auto" gives a valve
+    assert [leg.kind for leg in co2.route.legs] == ["isenthalp"]
+    assert co2.route.legs[0].given == {"p": "1 atm"}
+    end = co2.report.legs[0].end
+    assert end.phase == "solid+vapor" and end.h == pytest.approx(co2.report.legs[0].start.h)
+    click(co2, 500.0, 1.01325, view="ph")  # across: an isobar at 1 atm to h = 500 kJ/kg
+    leg = co2.route.legs[1]
+    assert leg.kind == "isobar" and leg.p == pytest.approx(101325.0)
+    T_h = CP.PropsSI("T", "P", 101325.0, "H", 500e3, "CO2")
+    assert leg.T == pytest.approx(T_h, abs=0.051)
+
+
+def test_clicks_on_Ts_draw_a_compressor_and_an_isotherm(co2):
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    co2.add_corner("-20 degC", "10 bar")
+    s0 = co2.report.legs[0].start.s if co2.report else None
+    s0 = CP.PropsSI("S", "T", 253.15, "P", 10e5, "CO2") / 1e3
+    click(co2, s0, 60.0, view="Ts")  # straight up on T-s: an ideal compressor to 60 °C
+    leg = co2.route.legs[0]
+    assert leg.kind == "isentrope"
+    p_exp = CP.PropsSI("P", "T", 333.15, "S", s0 * 1e3, "CO2")
+    assert leg.p == pytest.approx(p_exp, rel=2e-3)  # the end pressure at drawing precision
+    click(co2, s0 - 0.4, 60.0, view="Ts")  # across: an isotherm at the compressor's end T
+    assert co2.route.legs[1].kind == "isotherm"
+    assert co2.route.legs[1].T == co2.route.legs[0].T
+
+
+def test_readout_under_the_cursor_in_every_view(co2):
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    h_l, h_v = (CP.PropsSI("H", "P", 20e5, "Q", q, "CO2") for q in (0, 1))
+    h = 0.4 * h_l + 0.6 * h_v
+    text = co2.readout_text("ph", h, 20e5)
+    assert "liquid+vapor" in text and F.fraction(0.6) in text
+    assert "−19.50" in text  # CO2 boils at -19.50 °C at 20 bar (Span & Wagner 1996; from memory)
+    pT = co2.readout_text("pT", 250.0, 20e5)
+    h_pT = CP.PropsSI("H", "T", 250.0, "P", 20e5, "CO2")
+    assert "liquid" in pT and F.quantity(h_pT, "energy", "kJ/kg") in pT
+    assert "solid" in co2.readout_text("Ts", -200.0, 190.0)
+    # the page's pointer moves (throttled there) write the readout under each figure
+    ph = co2.canvases["ph"]
+    x0, x1, y0, y1 = ph.shown_window()
+    co2._page_move("ph", ph.page_event(h / 1e3, 20.0, type="mousemove"))
+    assert "liquid+vapor" in ph.readout.value
+    ph._dom_click({"type": "mouseleave"})
+    assert "liquid" not in ph.readout.value
+    co2._page_move("ph", {"type": "mousemove", "relativeX": float("nan")})  # never raises
+
+
+def test_every_corner_shows_its_state_in_the_leg_list(co2):
+    co2.route = pp.Route("CO2", T="20 degC", p="60 bar").isenthalp(p="1 atm")
+    end = co2.report.legs[0].end
+    state = co2.legs.rows[1].state.value
+    assert "solid+vapor" in state
+    assert F.quantity(end.h, "energy", "kJ/kg").replace("-", "−") in state
+    assert F.quantity(end.rho, "density", "kg/m3") in state
+    assert f"vapor {F.fraction(end.vapor_fraction)}" in state
+    assert f"solid {F.fraction(end.solid_fraction)}" in state
+
+
+def test_clicks_snap_to_round_values_unless_a_modifier_is_held(co2):
+    click(co2, 20.6, 0.985)  # near 20 °C and 1 atm at the default zoom
+    assert co2.route.start.given == {"T": "20 degC", "p": "1 atm"}
+    co2.clear()
+    click(co2, 20.6, 0.985, shiftKey=True)  # Shift: the point itself, at drawing precision
+    given = co2.route.start.given
+    assert given["T"] != "20 degC" and given["p"] != "1 atm"
+    assert abs(float(given["T"].split()[0]) - 20.6) < 0.5
+    co2.clear()
+    click(co2, 20.6, 0.985, altKey=True)
+    assert co2.route.start.given["p"] != "1 atm"
+
+
+def test_ten_quick_clicks_give_ten_corners_in_order(co2):
+    co2.leg_kind = "isobar"
+    click(co2, -40.0, 10.0)
+    Ts = [-30.0 + 5.0 * k for k in range(9)]
+    for T in Ts:  # each click its own message, handled in the order it was sent
+        click(co2, T, 10.0)
+    assert len(co2.route.corners()) == 10
+    assert [round(T - 273.15, 6) for T, _ in co2.route.corners()[1:]] == Ts
+    assert len(co2.diagram.corners.x) == 10 and len(co2.legs.rows) == 10
+
+
+def test_a_refused_click_leaves_nothing_and_the_next_is_taken(co2):
+    co2.add_corner("-20 degC", "10 bar")
+    co2.leg_kind = "isotherm"
+    co2.diagram.set_window(200.0, 300.0, 1e4, 1e11)
+    click(co2, -20.0, 50000.0)  # 50 kbar: beyond CO2's models
+    assert co2.message and len(co2.diagram.corners.x) == 1
+    click(co2, -20.0, 50.0)
+    assert len(co2.route.legs) == 1 and co2.message == ""
+
+
+def test_rejected_entry_then_a_valid_one_clears_its_mark(co2):
+    two_legs(co2)
+    row = co2.legs.rows[2]
+    row.T.value = "1+1 degC"  # not one number and one unit: refused, named
+    assert "1+1 degC" in row.error.value and "not one number and one unit" in row.error.value
+    assert row.T.value == "20.00"  # the route being analysed
+    assert "⚠" in co2.status.value
+    row.T.value = "25"
+    assert co2.route.legs[1].T == pytest.approx(298.15)
+    assert row.error.value == "" and "pp-rejected" not in row.T._dom_classes
+    assert "⚠" not in co2.status.value and co2.message == ""
+
+
+def test_substance_switch_clears_stale_messages(co2):
+    two_legs(co2)
+    co2.legs.rows[1].p.value = "warm"
+    co2.legs.add_kind.value, co2.legs.add_target.value = "isochore", "cold"
+    co2.legs.add_btn.click()
+    assert co2.legs.rows[1].error.value and co2.legs.add_error.value
+    co2.substance = "water"
+    assert co2.legs.rows[1].error.value == "" and co2.legs.add_error.value == ""
+    assert co2.route is not None and co2.message == ""
+
+
+def test_typed_values_follow_the_core_rules(co2):
+    co2.add_corner("\u221220 degC", "1 barg")  # the Unicode minus, a gauge pressure
+    assert co2.route.start.T == pytest.approx(253.15)
+    assert co2.route.start.p == pytest.approx(1e5 + 101325.0)
+    assert co2.add_leg("isotherm", "ambient") == ""
+    assert co2.route.legs[0].p == 101325.0
+    msg = co2.add_leg("isobar", "5 bar")
+    assert "'5 bar' is a pressure, not a temperature" in msg
+
+
+def test_error_and_hazard_text_in_the_display_units(co2):
+    co2.add_corner("-20 degC", "10 bar")
+    msg = co2.add_leg("isobar", "2500 degC")  # above CO2's models (2000 K)
+    assert "K" not in msg.split("valid")[0] or msg
+    shown = co2.status.value
+    assert "°C" in shown and "2000 K" not in shown
+    assert "1726.850 °C" in shown  # 2000 K, in the display unit at 0.001 K
+    co2.route = pp.Route("CO2", T="20 degC", p="60 bar").isenthalp(p="1 atm")
+    assert co2.cautions.value and " K " not in co2.cautions.value
+
+
+def test_route_documents_title_notes_files(co2, tmp_path):
+    co2.route = pp.Route("CO2", T="20 degC", p="60 bar", title="vent V-3").isenthalp(p="1 atm")
+    assert co2.title_field.value == "vent V-3"
+    co2.title_field.value = "vent V-3, revised"
+    co2.notes_field.value = "window: vessel above 30 °C"
+    assert co2.route.title == "vent V-3, revised"
+    assert co2.route.notes == "window: vessel above 30 °C"
+    path = co2.save_route(tmp_path / "v3.yaml")
+    other = RoutePlanner("water")
+    back = other.load_route(path)
+    assert other.route is not None and other.substance == "CarbonDioxide"
+    assert back.title == "vent V-3, revised" and other.notes_field.value == back.notes
+    assert np.ravel(other.route.corners()) == pytest.approx(np.ravel(co2.route.corners()))
+    co2.undo()  # the notes are an edit like any other
+    assert co2.route.notes == ""
+
+
+def test_route_file_upload_opens_the_route(co2, tmp_path):
+    from phasepath.routefile import dumps_route
+
+    text = dumps_route(pp.Route("water", T="20 degC", p="1 atm").isobar(T="120 degC"), "json")
+    co2.upload.value = (_upload("boil.json", text.encode()),)
+    assert co2.substance == "Water" and [c.kind for c in co2.report.crossings] == ["vaporization"]
+    co2.upload.value = (_upload("bad.json", b"{not json"),)
+    assert "bad.json" in co2.message and co2.substance == "Water"
+
+
+def test_picker_shows_plain_names_with_formula_and_pure_substances_only(co2):
+    options = list(co2.picker.options)
+    assert "carbon dioxide (CO2)" in options and "water (H2O)" in options
+    assert not any(o.startswith(("R410A", "R404A", "air")) for o in options)  # blends
+    assert co2.picker.value == "carbon dioxide (CO2)"
+    co2.picker.value = "water (H2O)"
+    assert co2.substance == "Water" and co2.picker.value == "water (H2O)"
+
+
+def test_quality_start_field(co2):
+    from phasepath.widgets.documents import QUALITY_STARTS
+
+    co2.start_T.value, co2.start_p.value, co2.start_q.value = "-20 degC", "", "0.3"
+    co2.start_btn.click()
+    if QUALITY_STARTS:  # the core takes Route(..., quality=): a start on the saturation curve
+        assert co2.route.start.state.vapor_fraction == pytest.approx(0.3)
+    else:
+        assert "quality" in co2.start_msg.value and co2.route is None
+    co2.start_q.value = "1.5"
+    co2.start_btn.click()
+    assert "⚠" in co2.start_msg.value
+
+
+def test_log_axes_have_one_tick_format(co2):
+    for c in (co2.diagram, co2.canvases["ph"]):
+        values, fmt = list(c.ay.tick_values), c.ay.tick_format
+        assert fmt in ("~f", ".0e") and values
+        assert all(math.log10(v) == pytest.approx(round(math.log10(v))) for v in values)
+    water = RoutePlanner("water", p_unit="Pa")
+    assert water.diagram.ay.tick_format == ".0e"  # 20 Pa to 660 MPa: powers of ten for all
+
+
+@pytest.mark.parametrize("name", ["CO2", "water", "helium", "nitrogen"])
+def test_region_and_point_labels_sit_inside_the_plot(name):
+    pl = RoutePlanner(name, T_unit="K", p_unit="bar")
+    for c in pl.canvases.values():
+        x0, x1, y0, y1 = c.shown_window()
+        for x, y in zip(c.regions.x, c.regions.y, strict=True):
+            assert x0 < x < x1 and y0 < y < y1
+    assert list(pl.diagram.point_labels.text) == ["triple point", "critical point"]
+    assert "LIQUID" in list(pl.diagram.regions.text)
+
+
+def test_fit_gives_the_high_pressure_ices_room():
+    pl = RoutePlanner("water", T_unit="degC", p_unit="MPa")
+    pl.route = pp.Route("water", T="-20 degC", p="1 bar").isotherm(p="300 MPa")
+    T0, T1, p0, p1 = pl.diagram.window()
+    assert p1 > 350e6 and p0 > 1e3  # the ice III field (208 to 350 MPa) is not a sliver
+    assert math.log10(p1 / p0) < 5.0
+    assert "ICE III" in list(pl.diagram.regions.text)
+
+
+def _upload(name: str, data: bytes) -> dict[str, object]:
+    """One file as the upload control holds it after the page sent it."""
+    import datetime
+
+    return {
+        "name": name,
+        "type": "application/json",
+        "size": len(data),
+        "content": memoryview(data),
+        "last_modified": datetime.datetime(2024, 1, 1, tzinfo=datetime.timezone.utc),
+    }

@@ -7,5 +7,6 @@ True
 """
 
 from .planner import RoutePlanner
+from .sweepmap import SweepMap
 
-__all__ = ["RoutePlanner"]
+__all__ = ["RoutePlanner", "SweepMap"]

@@ -1,92 +1,52 @@
-"""The phase diagram figure: boundary curves, special points, region names, the route, crossings.
+"""The pressure–temperature diagram: temperature on a linear axis, pressure on a logarithmic one,
+in the display units the planner is set to.
 
-Temperature runs on a linear axis and pressure on a logarithmic one, both in the display units the
-planner is set to. The figure holds no state of its own: the planner hands it SI values (K, Pa) and
-it converts them for drawing. Boundary curves come from the core's cached samples, converted once
-per (substance, units) and kept here.
+Its boundary curves come from :func:`phasepath.views.curves`; its region names (vapor, liquid,
+supercritical, the solid or each of water's ices) are written where each region has room inside
+the window, found from the core's phase of a grid of points (:mod:`.labels`). "fit" shows the
+route and the fields of the solids it reaches (water's ices III, V and VI get room when the route
+presses water that far). Below the triple point of a fluid with no published sublimation curve
+the diagram says so in the strip there.
 """
 
 from __future__ import annotations
 
 import math
+from collections.abc import Sequence
 from typing import Any
 
 import bqplot as bq
-import ipywidgets as W
 import numpy as np
 
 from .. import format as F
-from ..format import UNIT_LABELS
+from ..errors import PhasePathError
+from ..format import DisplayUnits
 from ..substances import NO_SUBLIMATION, Substance
-from .coords import from_display, to_display
+from .canvas import STYLE, ViewCanvas
 
-__all__ = ["PhaseDiagram", "STYLE"]
-
-#: Colours and marks of the diagram. The colours are drawn from a palette chosen to stay distinct
-#: for the common forms of colour-blindness; every curve also differs by its dash pattern, so the
-#: diagram reads in greyscale print.
-STYLE: dict[str, dict[str, Any]] = {
-    "vaporization": {"color": "#0b5fa5", "dash": "solid", "width": 2.5, "label": "vapor pressure"},
-    "melting": {"color": "#b34700", "dash": "dashed", "width": 2.5, "label": "melting"},
-    "sublimation": {
-        "color": "#2a7d5f",
-        "dash": "dash_dotted",
-        "width": 2.5,
-        "label": "sublimation",
-    },
-    # a custom substance's curve beyond the range of its data (Boundary.T_valid): same colour,
-    # dotted and thinner, so an extrapolation never reads as data
-    "extrapolated": {"dash": "dotted", "width": 1.8, "label": "beyond the data"},
-    "route": {"color": "#1d1d1f", "width": 3.0},
-    "route_invalid": {"color": "#8a8a8a", "width": 2.0},
-    "corner": {"fill": "#ffffff", "start": "#1d1d1f", "stroke": "#1d1d1f"},
-    "crossing": {"fill": "#f2b01e", "stroke": "#1d1d1f", "marker": "diamond"},
-    "triple": {"fill": "#1d1d1f", "marker": "triangle-up"},
-    "critical": {"fill": "#ffffff", "marker": "square"},
-    "region": {"color": "#7a7a7a"},
-}
-
-_CSS = """
-<style>
-.pp-diagram path.line, .pp-diagram text, .pp-diagram .label { pointer-events: none; }
-.pp-diagram .plotarea_events { cursor: crosshair; }
-.pp-diagram.pp-pan .plotarea_events { cursor: move; }
-</style>
-"""
+__all__ = ["PhaseDiagram", "STYLE", "anchors"]
 
 
-class PhaseDiagram:
-    """The bqplot figure of one substance's P-T diagram with a route drawn on it.
+class PhaseDiagram(ViewCanvas):
+    """The bqplot figure of one substance's P–T diagram with a route drawn on it."""
 
-    The route's corners are a Scatter whose clicks add points (``"click": "add"``) and whose
-    points can be dragged; the planner observes that Scatter's ``x`` and ``y``.
-    """
+    view = "pT"
+    height = "460px"
 
-    def __init__(self, T_unit: str = "degC", p_unit: str = "bar") -> None:
-        self.T_unit, self.p_unit = T_unit, p_unit
-        self.sx = bq.LinearScale()
-        self.sy = bq.LogScale()
+    def __init__(
+        self,
+        T_unit: str | DisplayUnits = "degC",
+        p_unit: str = "bar",
+        energy_unit: str = "kJ/kg",
+    ) -> None:
+        units = (
+            T_unit
+            if isinstance(T_unit, DisplayUnits)
+            else DisplayUnits(T_unit, p_unit, energy_unit)
+        )
+        super().__init__(units)
         sc = {"x": self.sx, "y": self.sy}
-        self.ax = bq.Axis(
-            scale=self.sx,
-            label="",
-            tick_format=".0f",
-            grid_lines="dashed",
-            grid_color="#e3e3e3",
-            label_offset="36px",
-        )
-        self.ay = bq.Axis(
-            scale=self.sy,
-            side="left",
-            label="",
-            tick_format=".4~g",
-            grid_lines="dashed",
-            grid_color="#e3e3e3",
-            label_offset="52px",
-        )
         empty = np.array([], dtype=float)
-        self.curves: list[bq.Lines] = []  # rebuilt per substance
-        # the strip below the triple point of a fluid with no published sublimation curve
         self.strip_note = bq.Label(
             x=empty,
             y=empty,
@@ -98,212 +58,86 @@ class PhaseDiagram:
             align="middle",
             rotate_angle=-90,
         )
-        self.regions = bq.Label(
-            x=empty,
-            y=empty,
-            text=[],
-            scales=sc,
-            colors=[STYLE["region"]["color"]],
-            default_size=15,
-            font_unit="px",
-            font_weight="bold",
-            align="middle",
-            enable_hover=False,
-            apply_clip=True,
-        )
-        self.route_line = bq.Lines(
-            x=empty,
-            y=empty,
-            scales=sc,
-            colors=[STYLE["route"]["color"]],
-            stroke_width=STYLE["route"]["width"],
-            enable_hover=False,
-        )
-        self.triple = bq.Scatter(
-            x=empty,
-            y=empty,
-            scales=sc,
-            marker=STYLE["triple"]["marker"],
-            colors=[STYLE["triple"]["fill"]],
-            stroke="#1d1d1f",
-            default_size=110,
-            enable_hover=True,
-            tooltip=W.HTML(),
-        )
-        self.critical = bq.Scatter(
-            x=empty,
-            y=empty,
-            scales=sc,
-            marker=STYLE["critical"]["marker"],
-            colors=[STYLE["critical"]["fill"]],
-            stroke="#1d1d1f",
-            stroke_width=2.0,
-            default_size=90,
-            enable_hover=True,
-            tooltip=W.HTML(),
-        )
-        self.crossings = bq.Scatter(
-            x=empty,
-            y=empty,
-            scales=sc,
-            marker=STYLE["crossing"]["marker"],
-            colors=[STYLE["crossing"]["fill"]],
-            stroke=STYLE["crossing"]["stroke"],
-            stroke_width=1.5,
-            default_size=110,
-            enable_hover=True,
-            tooltip=W.HTML(),
-        )
-        self.corners = bq.Scatter(
-            x=empty,
-            y=empty,
-            scales=sc,
-            marker="circle",
-            colors=[STYLE["corner"]["fill"]],
-            stroke=STYLE["corner"]["stroke"],
-            stroke_width=2.0,
-            default_size=70,
-            names=[],
-            display_names=True,
-            enable_move=True,
-            interactions={"click": "add"},
-            enable_hover=True,
-            tooltip=W.HTML(),
-            drag_size=1.6,
-        )
-        self.figure = bq.Figure(
-            marks=[
-                self.strip_note,
-                self.regions,
-                self.route_line,
-                self.crossings,
-                self.triple,
-                self.critical,
-                self.corners,
-            ],
-            axes=[self.ax, self.ay],
-            display_toolbar=False,
-            animation_duration=0,
-            fig_margin={"top": 16, "bottom": 48, "left": 72, "right": 16},
-            layout=W.Layout(width="100%", height="460px", min_width="420px"),
-            padding_x=0.0,
-            padding_y=0.0,
-        )
-        self.figure.add_class("pp-diagram")
-        self.css = W.HTML(_CSS, layout=W.Layout(height="0px", overflow="hidden"))
-        self._pan = bq.interacts.PanZoom(scales={"x": [self.sx], "y": [self.sy]})
-        self.substance: Substance | None = None
-        self._drawn: tuple[str, str] | None = None  # units the static parts were drawn in
-        self._curve_pool: list[bq.Lines] = []
-        #: (kind, beyond the data, T [K], p [Pa]) of each drawn piece of a boundary curve
-        self._boundary_si: list[tuple[str, bool, np.ndarray, np.ndarray]] = []
-        self._special_si: list[tuple[str, float, float]] = []
-        self._region_si: list[tuple[str, float, float]] = []
+        self.figure.marks = [self.strip_note, *self.figure.marks]
 
-    # -- substance ---------------------------------------------------------------------------
-    def set_substance(self, sub: Substance) -> None:
-        """Draw the boundary curves, special points and region names of ``sub``.
+    def _marks(self) -> list[Any]:
+        marks = super()._marks()
+        note = getattr(self, "strip_note", None)
+        return [note, *marks] if note is not None else marks
 
-        The curve marks are kept and reused: setting the substance already drawn only redraws
-        what changed, and another substance reuses the same Lines (new ones only if it has more
-        curve pieces), so the page keeps its views instead of building new ones.
-        """
-        if sub is self.substance and self._drawn == (self.T_unit, self.p_unit):
-            return  # already drawn in these units
-        same = sub is self.substance
-        self.substance = sub
-        if not same:
-            self._boundary_si = _curve_pieces(sub)
-            self._special_si = [
-                (name, T, p)
-                for name, (T, p) in (("triple point", sub.triple), ("critical point", sub.critical))
-            ]
-            self._region_si = _region_positions(sub, self.default_window(sub))
-            sc = {"x": self.sx, "y": self.sy}
-            while len(self._curve_pool) < len(self._boundary_si):
-                self._curve_pool.append(
-                    bq.Lines(
-                        x=np.array([0.0, 1.0]),
-                        y=np.array([1.0, 2.0]),
-                        scales=sc,
-                        enable_hover=False,
-                    )
-                )
-            self.curves = self._curve_pool[: len(self._boundary_si)]
-            for line, (kind, extrapolated, _T, _p) in zip(
-                self.curves, self._boundary_si, strict=True
-            ):
-                st = STYLE[kind]
-                ex = STYLE["extrapolated"]
-                with line.hold_sync():
-                    line.colors = [st["color"]]
-                    line.line_style = ex["dash"] if extrapolated else st["dash"]
-                    line.stroke_width = ex["width"] if extrapolated else st["width"]
-            marks = self.curves + [
-                self.strip_note,
-                self.regions,
-                self.route_line,
-                self.crossings,
-                self.triple,
-                self.critical,
-                self.corners,
-            ]
-            if list(self.figure.marks) != marks:
-                self.figure.marks = marks
-        self.redraw_static()
+    @property
+    def T_unit(self) -> str:
+        return self.units.T
 
-    def redraw_static(self) -> None:
-        """Boundary curves, points and region names in the current units."""
-        if self.substance is None:
-            return
-        self._drawn = (self.T_unit, self.p_unit)
-        for line, (_kind, _ex, T, p) in zip(self.curves, self._boundary_si, strict=True):
-            x, y = to_display(T, p, self.T_unit, self.p_unit)
-            with line.hold_sync():
-                line.x, line.y = x, y
-        for mark, (name, T, p) in zip((self.triple, self.critical), self._special_si, strict=True):
-            if math.isfinite(T) and math.isfinite(p):
-                x, y = to_display([T], [p], self.T_unit, self.p_unit)
-                tip = (
-                    f"<div class='pp-tip'><b>{name}</b><br>{self.fmt_T(T)}<br>{self.fmt_p(p)}</div>"
-                )
-            else:  # a substance built from data without this point
-                x = y = np.array([], dtype=float)
-                tip = f"<div class='pp-tip'>no {name} given</div>"
-            with mark.hold_sync():
-                mark.x, mark.y = x, y
-            mark.tooltip.value = tip
-        for mark, keep in ((self.regions, False), (self.strip_note, True)):
-            rows = [r for r in self._region_si if (r[0] == NO_SUBLIMATION) == keep]
-            rx, ry = to_display(
-                [r[1] for r in rows], [r[2] for r in rows], self.T_unit, self.p_unit
-            )
-            with mark.hold_sync():
-                mark.x, mark.y = rx, ry
-                mark.text = [r[0] for r in rows]
-        self.ax.label = f"Temperature [{UNIT_LABELS[self.T_unit]}]"
-        self.ay.label = f"Pressure [{UNIT_LABELS[self.p_unit]}]"
-
-    # -- units ---------------------------------------------------------------------------------
-    def set_units(self, T_unit: str, p_unit: str) -> None:
-        """Switch display units, keeping the visible window."""
-        window = self.window()
-        self.T_unit, self.p_unit = T_unit, p_unit
-        self.redraw_static()
-        if window is not None:
-            self.set_window(*window)
+    @property
+    def p_unit(self) -> str:
+        return self.units.p
 
     def fmt_T(self, T: float) -> str:
-        return F.quantity(T, "temperature", self.T_unit)
+        return F.quantity(T, "temperature", self.units.T)
 
     def fmt_p(self, p: float) -> str:
-        return F.quantity(p, "pressure", self.p_unit)
+        return F.quantity(p, "pressure", self.units.p)
+
+    # -- regions -------------------------------------------------------------------------------
+    def region_of(self, x: float, y: float) -> str | None:
+        sub = self.substance
+        assert sub is not None
+        try:
+            phase, form = sub.classify(x, y)
+        except PhasePathError:
+            return None
+        if phase == "solid":
+            if form:
+                return f"ICE {form}" if sub.solids.name == "ice" else f"SOLID {form}"
+            return "SOLID"
+        return phase.upper()
+
+    def small_labels(
+        self, grid: list[list[str | None]], xs: np.ndarray, ys: np.ndarray, spots: dict[str, Any]
+    ) -> list[tuple[float, float, str]]:
+        """A named solid (one of water's ices) whose field is too small for its name gets it
+        beside the field, pointing at it ("◂ ICE III"), where the cells right of it are free."""
+        out = []
+        names = {k for row in grid for k in row if k and k not in spots and " " in k}
+        ny, nx = len(grid), len(grid[0]) if grid else 0
+        for name in sorted(names):
+            rows = sorted({i for i in range(ny) for j in range(nx) if grid[i][j] == name})
+            for i in rows:  # the first row whose cells right of the field are fluid
+                j = max(j for j in range(nx) if grid[i][j] == name)
+                beside = grid[i][j + 1 : j + 5]
+                if len(beside) == 4 and all(k and " " not in k for k in beside):
+                    out.append((float(xs[j + 2]), float(ys[i]), f"◂ {name}"))
+                    break
+        return out
+
+    def redraw_static(self) -> None:
+        super().redraw_static()
+        sub = self.substance
+        if sub is None:
+            return
+        window = self.window() or self.default_window()
+        T_t = sub.triple[0]
+        if sub.sublimation is None and math.isfinite(T_t) and T_t > window[0]:
+            p_mid = 10 ** (0.5 * (math.log10(window[2]) + math.log10(window[3])))
+            x, y = self.display([window[0] + 0.5 * (T_t - window[0])], [p_mid])
+            text = [NO_SUBLIMATION]
+        else:
+            x = y = np.array([], dtype=float)
+            text = []
+        with self.strip_note.hold_sync():
+            self.strip_note.x, self.strip_note.y, self.strip_note.text = x, y, text
+
+    def widgets(self) -> list[Any]:
+        return [*super().widgets(), self.strip_note]
 
     # -- window --------------------------------------------------------------------------------
-    def default_window(self, sub: Substance) -> tuple[float, float, float, float]:
+    def default_window(self, sub: Substance | None = None) -> tuple[float, float, float, float]:
         """(T_lo, T_hi [K], p_lo, p_hi [Pa]) showing the triple and critical points with margin
         (a substance built from data may lack either: the curves' own ends stand in)."""
-        T_t, p_t, T_c, p_c = _anchors(sub)
+        sub = sub or self.substance
+        assert sub is not None
+        T_t, p_t, T_c, p_c = anchors(sub)
         span = T_c - T_t
         T_lo = max(sub.T_min, T_t - 0.3 * span)
         if sub.sublimation is None and math.isfinite(T_t):
@@ -318,175 +152,62 @@ class PhaseDiagram:
             T_lo, T_hi = T_lo - 10.0, T_hi + 10.0
         return T_lo, T_hi, max(p_lo, 1e-3), max(p_hi, 10 * max(p_lo, 1e-3))
 
-    def fit_window(self, corners: list[tuple[float, float]]) -> tuple[float, float, float, float]:
-        """The default window grown to hold every corner of the route, with a margin."""
-        assert self.substance is not None
-        T_lo, T_hi, p_lo, p_hi = self.default_window(self.substance)
-        if corners:
-            Ts = [c[0] for c in corners]
-            ps = [c[1] for c in corners if c[1] > 0]
-            dT = 0.06 * (max(Ts + [T_hi]) - min(Ts + [T_lo]))
-            T_lo, T_hi = min([T_lo] + [t - dT for t in Ts]), max([T_hi] + [t + dT for t in Ts])
-            if ps:
-                p_lo, p_hi = (
-                    min([p_lo] + [p / 2.0 for p in ps]),
-                    max([p_hi] + [p * 2.0 for p in ps]),
-                )
-        T_lo = max(T_lo, 1e-3)
-        return T_lo, T_hi, p_lo, p_hi
-
-    def set_window(self, T_lo: float, T_hi: float, p_lo: float, p_hi: float) -> None:
-        """Show T_lo..T_hi [K] and p_lo..p_hi [Pa]."""
-        (x0, x1), (y0, y1) = to_display([T_lo, T_hi], [p_lo, p_hi], self.T_unit, self.p_unit)
-        with self.sx.hold_sync(), self.sy.hold_sync():
-            self.sx.min, self.sx.max = float(min(x0, x1)), float(max(x0, x1))
-            self.sy.min, self.sy.max = float(y0), float(y1)
-
-    def window(self) -> tuple[float, float, float, float] | None:
-        """The visible window in SI, or None before it is set."""
-        if None in (self.sx.min, self.sx.max, self.sy.min, self.sy.max):
-            return None
-        T0, p0 = from_display(self.sx.min, self.sy.min, self.T_unit, self.p_unit)
-        T1, p1 = from_display(self.sx.max, self.sy.max, self.T_unit, self.p_unit)
-        return min(T0, T1), max(T0, T1), p0, p1
-
-    def set_mode(self, mode: str) -> None:
-        """ "draw" (clicks add corners) or "pan" (drag pans, wheel zooms)."""
-        self.figure.interaction = self._pan if mode == "pan" else None
-        if mode == "pan":
-            self.figure.add_class("pp-pan")
-        else:
-            self.figure.remove_class("pp-pan")
-
-    # -- route ---------------------------------------------------------------------------------
-    def set_route(
+    def fit_window(
         self,
-        corners: list[tuple[float, float]],
-        valid: bool = True,
-        path: list[tuple[float, float]] | None = None,
-    ) -> None:
-        """Draw the route through ``path`` (SI points along every leg; the corners joined by
-        straight lines if None) and the corner markers at ``corners``."""
-        if corners:
-            x, y = to_display(
-                [c[0] for c in corners], [c[1] for c in corners], self.T_unit, self.p_unit
-            )
-        else:
-            x = y = np.array([], dtype=float)
-        if path:
-            lx, ly = to_display(
-                [c[0] for c in path], [c[1] for c in path], self.T_unit, self.p_unit
-            )
-        else:
-            lx, ly = x, y
-        st = STYLE["route"] if valid else STYLE["route_invalid"]
-        with self.route_line.hold_sync():
-            self.route_line.x, self.route_line.y = lx, ly
-            self.route_line.colors = [st["color"]]
-            self.route_line.stroke_width = st["width"]
-            self.route_line.line_style = "solid" if valid else "dashed"
-        with self.corners.hold_sync():
-            self.corners.x, self.corners.y = x.astype(float), y.astype(float)
-            self.corners.names = ["S"] + [str(i) for i in range(1, len(corners))]
-            self.corners.colors = [STYLE["corner"]["start"]] + [STYLE["corner"]["fill"]] * max(
-                len(corners) - 1, 0
-            )
-
-    def preview_route(self, corners: list[tuple[float, float]]) -> None:
-        """Move only the route line (while a corner is being dragged)."""
-        x, y = to_display(
-            [c[0] for c in corners], [c[1] for c in corners], self.T_unit, self.p_unit
-        )
-        with self.route_line.hold_sync():
-            self.route_line.x, self.route_line.y = x, y
-
-    def set_crossings(self, points: list[tuple[float, float]]) -> None:
-        """Mark each crossing (SI) on the diagram."""
-        if points:
-            x, y = to_display(
-                [c[0] for c in points], [c[1] for c in points], self.T_unit, self.p_unit
-            )
-        else:
-            x = y = np.array([], dtype=float)
-        with self.crossings.hold_sync():
-            self.crossings.x, self.crossings.y = x, y
-
-    def widgets(self) -> list[W.Widget]:
-        """Every widget whose state a redraw may touch (for batched updates)."""
-        return [
-            self.figure,
-            self.sx,
-            self.sy,
-            self.ax,
-            self.ay,
-            self.route_line,
-            self.corners,
-            self.crossings,
-            self.triple,
-            self.critical,
-            self.regions,
-            self.strip_note,
-            *self._curve_pool,
-        ]
+        points: Sequence[tuple[float, float]],
+        forms: Sequence[str] = (),
+    ) -> tuple[float, float, float, float]:
+        """The window that fits the route's points (T [K], p [Pa]) and the fields of the solid
+        forms it reaches, with a margin; the default window without points."""
+        sub = self.substance
+        assert sub is not None
+        pts = [(T, p) for T, p in points if math.isfinite(T) and math.isfinite(p) and p > 0]
+        if not pts:
+            return self.default_window()
+        T_lo, T_hi, p_lo, p_hi = self.default_window()
+        span = math.log10(p_hi / p_lo)
+        small = []  # forms whose field would be a sliver of the default window
+        for form in forms:
+            field = _field(sub, form)
+            if field:
+                ps = [p for _, p in field]
+                if math.log10(max(ps) / min(ps)) < 0.15 * span:
+                    small.append(form)
+                    pts += field
+        forms = small
+        Ts = [T for T, _ in pts]
+        lps = [math.log10(p) for _, p in pts]
+        a, b, c, d = min(Ts), max(Ts), min(lps), max(lps)
+        if forms:  # the route and the fields of the solids it reaches, with room for them
+            dT, dp = max(b - a, 20.0), max(d - c, 1.0)
+            mid_T, mid_p = 0.5 * (a + b), 0.5 * (c + d)
+            a, b = mid_T - 0.58 * dT, mid_T + 0.58 * dT
+            c, d = mid_p - 0.6 * dp, mid_p + 0.6 * dp
+            return max(a, 1e-3), b, 10**c, 10**d
+        # else the default window, grown to hold the route with a margin
+        dT = 0.06 * (max(b, T_hi) - min(a, T_lo))
+        T_lo, T_hi = min(T_lo, a - dT), max(T_hi, b + dT)
+        p_lo, p_hi = min(p_lo, 10**c / 2.0), max(p_hi, 10**d * 2.0)
+        return max(T_lo, 1e-3), T_hi, p_lo, p_hi
 
 
-def _region_positions(
-    sub: Substance, window: tuple[float, float, float, float]
-) -> list[tuple[str, float, float]]:
-    """Where to write the four region names (SI), inside each region and the default window."""
-    T_lo, T_hi, p_lo, p_hi = window
-    T_t, p_t, T_c, p_c = _anchors(sub)
-    lp_t, lp_c = math.log10(p_t), math.log10(p_c)
-    out: list[tuple[str, float, float]] = []
-    # vapor: below the vapor-pressure curve, right of the triple point, low pressure
-    T_v = T_t + 0.55 * (T_c - T_t)
-    p_v = 10 ** (0.5 * (math.log10(p_lo) + lp_t)) if p_lo < p_t else p_t / 3
-    out.append(("VAPOR", T_v, max(p_v, p_lo * 3)))
-    # liquid: just below the critical temperature, well above the vapor-pressure curve
-    T_l = T_t + 0.45 * (T_c - T_t)
-    p_l = 10 ** (lp_c + 0.45 * (math.log10(p_hi) - lp_c))
-    if sub.vapor is not None and sub.vapor.T_min <= T_l <= sub.vapor.T_max:
-        p_l = max(p_l, 10 * sub.vapor.p_of_T(T_l))
-    for b in sub.melting:
-        if b.solid_side == "above" and b.T_min <= T_l <= b.T_max:
-            p_l = (
-                min(
-                    p_l,
-                    10
-                    ** (
-                        0.5
-                        * (math.log10(max(sub.vapor.p_of_T(T_l), 1e-3)) + math.log10(b.p_of_T(T_l)))
-                    ),
-                )
-                if sub.vapor
-                else p_l
-            )
-    out.append(("LIQUID", T_l, min(p_l, p_hi / 2)))
-    # solid: left of the triple point (only where a solid boundary is known)
-    if sub.melting or sub.sublimation is not None:
-        T_s = T_lo + 0.35 * (T_t - T_lo) if T_t > T_lo else T_t
-        out.append(("SOLID", T_s, 10 ** (0.5 * (lp_t + lp_c))))
-    # below the triple point of a fluid with no published sublimation curve: say so plainly
-    if sub.sublimation is None and math.isfinite(T_t) and T_t > T_lo:
-        # written upright in the strip, centred on the window's pressure range
-        p_mid = 10 ** (0.5 * (math.log10(p_lo) + math.log10(p_hi)))
-        out.append((NO_SUBLIMATION, T_lo + 0.5 * (T_t - T_lo), p_mid))
-    # supercritical: right of and above the critical point (only where one is known)
-    if math.isfinite(sub.critical[0]) and math.isfinite(sub.critical[1]):
-        out.append(
-            (
-                "SUPERCRITICAL",
-                T_c + 0.55 * (T_hi - T_c),
-                10 ** (lp_c + 0.5 * (math.log10(p_hi) - lp_c)),
-            )
-        )
+def _field(sub: Substance, form: str) -> list[tuple[float, float]]:
+    """Points that bound the field of a named solid form (the ends of its branches)."""
+    out = []
+    for b in sub.boundaries:
+        if b.solid_form == form:
+            for T in (b.T_min, b.T_max):
+                try:
+                    out.append((T, b.p_of_T(T)))
+                except PhasePathError:
+                    continue
     return out
 
 
-def _anchors(sub: Substance) -> tuple[float, float, float, float]:
-    """(T_t, p_t, T_c, p_c) for placing the window and the region names: the triple and
-    critical points, or, where a substance built from data lacks one, the low and high ends of
-    its vapor-pressure curve (else of its temperature range)."""
+def anchors(sub: Substance) -> tuple[float, float, float, float]:
+    """(T_t, p_t, T_c, p_c) for placing the window: the triple and critical points, or, where a
+    substance built from data lacks one, the low and high ends of its vapor-pressure curve (else
+    of its temperature range)."""
     T_t, p_t = sub.triple
     T_c, p_c = sub.critical
     v = sub.vapor
@@ -505,35 +226,3 @@ def _anchors(sub: Substance) -> tuple[float, float, float, float]:
     if not p_c > p_t:
         p_c = p_t * 10.0
     return T_t, p_t, T_c, p_c
-
-
-def _curve_pieces(sub: Substance) -> list[tuple[str, bool, np.ndarray, np.ndarray]]:
-    """(kind, beyond the data, T [K], p [Pa]) of each piece to draw: every boundary's cached
-    sample, split where a branch built from data (``Boundary.T_valid``) leaves its data range.
-    Neighbouring pieces share their end point, so the curve is drawn unbroken."""
-    out = []
-    for b in sub.boundaries:
-        T, p = b.curve(0.0, sub.p_max)
-        if len(T) < 2:
-            continue
-        valid = getattr(b, "T_valid", None)
-        if valid is None:
-            out.append((b.kind, False, T, p))
-            continue
-        lo, hi = valid
-        cuts = [float(t) for t in (lo, hi) if T[0] < t < T[-1]]
-        edges = [float(T[0]), *cuts, float(T[-1])]
-        for a, z in zip(edges[:-1], edges[1:], strict=False):
-            inside = (T > a) & (T < z)
-            Ts = np.concatenate(([a], T[inside], [z]))
-            ps = np.concatenate(([_p_at(b, a, T, p)], p[inside], [_p_at(b, z, T, p)]))
-            mid = 0.5 * (a + z)
-            out.append((b.kind, not (lo <= mid <= hi), Ts, ps))
-    return out
-
-
-def _p_at(b: Any, T: float, Ts: np.ndarray, ps: np.ndarray) -> float:
-    try:
-        return float(b.p_of_T(T))
-    except Exception:  # drawing only: fall back to the sample's interpolant in ln p
-        return float(np.exp(np.interp(T, Ts, np.log(ps))))

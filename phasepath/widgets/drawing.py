@@ -81,9 +81,9 @@ def corners(spec: Spec, route: Route | None = None) -> list[tuple[float, float]]
     if route is not None:
         return route.corners()
     start = spec["start"]
+    if "T" not in start or "p" not in start:
+        return []  # a start given by density or quality needs the EOS
     T = parse_temperature(start["T"])
-    if "p" not in start:
-        return []  # a start given by density needs the EOS
     p = parse_pressure(start["p"])
     out = [(T, p)]
     for leg in spec["legs"]:
@@ -177,9 +177,10 @@ def move_corner(
         if values[mine] is not None and not (drag and is_event(own)):
             own.pop("until", None)
             own[mine] = values[mine]
-        if values[held] is not None:
+        held_value = values[held]
+        if held_value is not None:
             try:
-                _set_held(new, index - 1, held, values[held], index)
+                _set_held(new, index - 1, held, held_value, index)
             except RouteError:
                 if not drag:
                     raise

@@ -1,70 +1,33 @@
 """What the page's events mean for the drawing: pure functions, no widget library.
 
-The browser reports a click as one more point appended to the corner Scatter's ``x``/``y`` and a
-finished drag as one point of it moved; :func:`read_change` tells which. A point in display
-units becomes typed text in those units (:func:`point_text`); a value the user typed gets its
-display unit when it is a bare number (:func:`typed_text`); a leg typed in the leg list becomes
-its target (:func:`typed_target`).
+A value the user typed gets its display unit when it is a bare number (:func:`typed_text`); a
+leg typed in the leg list becomes its target (:func:`typed_target`); a corner added by
+:meth:`RoutePlanner.add_corner` with the kind "auto" takes the straight kind closer to its
+direction (:func:`auto_kind`). The page's clicks and drags are read in :mod:`.pointer` and
+:mod:`.clicks`.
 
->>> read_change([(1.0, 2.0)], [1.0, 5.0], [2.0, 6.0])
-('add', 1)
->>> read_change([(1.0, 2.0), (5.0, 6.0)], [1.0, 7.0], [2.0, 6.0])
-('move', 1)
+>>> from phasepath.format import DisplayUnits
+>>> typed_text("25", "temperature", DisplayUnits("degC", "bar"))
+'25 degC'
 """
 
 from __future__ import annotations
 
 import math
-from collections.abc import Sequence
 from typing import Any
 
 from ..errors import PhasePathError, RouteError
 from ..format import DisplayUnits
 from ..records import EVENTS, LEG_KINDS
 from ..units import parse_quantity
-from .coords import from_display
 
 __all__ = [
-    "read_change",
-    "point_text",
     "typed_text",
     "typed_target",
     "is_density",
     "auto_kind",
     "event_index",
 ]
-
-
-def read_change(
-    shown: Sequence[tuple[float, float]], x: Sequence[float], y: Sequence[float]
-) -> tuple[str, int | None]:
-    """("add", index) for a click, ("move", index) for a finished drag, ("wait", None) while
-    the other coordinate has not arrived, ("redraw", None) for anything else."""
-    if len(x) != len(y):
-        return "wait", None
-    if len(x) == len(shown) + 1:
-        return "add", len(x) - 1
-    if len(x) == len(shown):
-        moved = [
-            i
-            for i, (a, b) in enumerate(zip(zip(x, y, strict=True), shown, strict=True))
-            if not (
-                math.isclose(a[0], b[0], rel_tol=1e-12, abs_tol=1e-12)
-                and math.isclose(a[1], b[1], rel_tol=1e-12)
-            )
-        ]
-        if len(moved) == 1:
-            return "move", moved[0]
-        return ("redraw", None) if moved else ("same", None)
-    return "redraw", None
-
-
-def point_text(x: float, y: float, units: DisplayUnits) -> tuple[str, str]:
-    """A point of the diagram (display units) as typed text at drawing precision."""
-    from .drawing import text
-
-    T, p = from_display(x, y, units.T, units.p)
-    return text(T, "temperature", units.T), text(p, "pressure", units.p)
 
 
 def typed_text(value: object, dimension: str, units: DisplayUnits) -> str:

@@ -1,26 +1,27 @@
-"""Panels of the planner: the leg list, the results tables, the cautions and the legend.
-
-The leg list shows every corner of the route with its T and p in the display units; a value typed
-there goes to the planner, which validates it through the core. A rejected value stays in its field
-with the reason next to it, and the route keeps its last good state.
+"""Panels of the planner: the results tables, the cautions and the legends (the leg list is in
+:mod:`.leglist`). The core's texts (cautions, hazard reasons) are shown with their temperatures
+and pressures in the display units at the display precision (:func:`.readout.in_display_units`).
 """
 
 from __future__ import annotations
 
 import html
-import math
-from collections.abc import Callable
-
-import ipywidgets as W
 
 from .. import format as F
 from .. import tables
-from ..format import UNIT_LABELS, DisplayUnits
-from ..records import LEG_KINDS, Crossing, LegSummary
+from ..format import DisplayUnits
+from ..records import Crossing, LegSummary
 from ..report import Report
-from ..units import convert
+from .readout import in_display_units
 
-__all__ = ["LegList", "results_html", "cautions_html", "crossing_tip", "legend_html", "CSS"]
+__all__ = [
+    "results_html",
+    "cautions_html",
+    "crossing_tip",
+    "legend_html",
+    "energy_legend_html",
+    "CSS",
+]
 
 #: Styles of the planner's HTML parts (tables, messages, legend).
 CSS = """
@@ -41,170 +42,14 @@ CSS = """
   border-left: 4px solid #f2b01e; padding: 4px 8px; }
 .pp-planner .pp-err { color: #9a3412; font-size: 12px; }
 .pp-planner .pp-legs .widget-text input { font-variant-numeric: tabular-nums; }
+.pp-planner .pp-legs .pp-rejected input { border: 2px solid #b34700; background: #fdf1e6; }
+.pp-planner .pp-legs .pp-typed { font-family: monospace; text-decoration: line-through; }
+.pp-planner .pp-legs .pp-state { font-size: 11px; color: #444; padding-left: 4px;
+  font-variant-numeric: tabular-nums; }
+.pp-planner .pp-legs .pp-selected { background: #fdecee; border-left: 3px solid #d1495b; }
+.pp-planner .pp-doc textarea { font-size: 12px; }
 </style>
 """
-
-
-def _hint(kind: str) -> str:
-    """What a typed target may be for a leg kind (placeholder of the add-a-leg field)."""
-    targets = LEG_KINDS[kind].targets
-    if "until" in targets:
-        coord = next(t for t in targets if t != "until")
-        return f"{coord}, or until an event"
-    if len(targets) > 1:
-        return " or ".join(f"end {t}" for t in targets)
-    return f"end {targets[0]}, e.g. {'1 atm' if targets[0] == 'p' else '20 degC'}"
-
-
-class LegList(W.VBox):
-    """One row per corner: index, the kind of the leg ending there, T and p fields, delete; and
-    a last row to type a new leg (kind, target, add).
-
-    ``on_edit(index, coord, text)`` is called when a field is committed (Enter or leaving it),
-    ``on_delete(index)`` when a row's delete button is pressed, ``on_add(kind, text)`` when a
-    typed leg is added. Each returns an error message to show next to the row, or "" when the
-    edit was taken.
-    """
-
-    def __init__(
-        self,
-        on_edit: Callable[[int, str, str], str],
-        on_delete: Callable[[int], str],
-        on_add: Callable[[str, str], str] | None = None,
-    ) -> None:
-        self._on_edit, self._on_delete, self._on_add = on_edit, on_delete, on_add
-        self._rows: list[_Row] = []
-        self._quiet = False
-        self.header = W.HTML()
-        self.hint = W.HTML("<span class='pp-err'></span>")
-        self.add_kind = W.Dropdown(
-            options=[(kind.label, name) for name, kind in LEG_KINDS.items()],
-            value="isobar",
-            layout=W.Layout(width="120px"),
-        )
-        self.add_target = W.Text(placeholder=_hint("isobar"), layout=W.Layout(width="188px"))
-        self.add_btn = W.Button(
-            description="add", tooltip="add this leg at the end", layout=W.Layout(width="52px")
-        )
-        self.add_error = W.HTML()
-        self.add_kind.observe(
-            lambda ch: setattr(self.add_target, "placeholder", _hint(ch["new"])),
-            names="value",
-        )
-        self.add_btn.on_click(lambda _b: self._added())
-        self.add_box = W.VBox(
-            [
-                W.HTML("<div style='font-size:12px;color:#555;margin-top:6px'>type a leg</div>"),
-                W.HBox([self.add_kind, self.add_target, self.add_btn]),
-                self.add_error,
-            ]
-        )
-        super().__init__(children=[self.header], layout=W.Layout(min_width="330px"))
-        self.add_class("pp-legs")
-
-    def show(
-        self,
-        corners: list[tuple[float, float]],
-        kinds: list[str],
-        T_unit: str,
-        p_unit: str,
-        events: list[str] | None = None,
-    ) -> None:
-        """Write the corners (SI) into the rows in the display units. ``events`` holds, per
-        corner, the event its leg ends on ("" for a leg that ends at its target)."""
-        self.header.value = (
-            "<div class='pp-h'>Legs</div><div style='font-size:12px;color:#555'>"
-            f"corner · leg kind · T [{UNIT_LABELS[T_unit]}] · p [{UNIT_LABELS[p_unit]}]</div>"
-        )
-        events = events or [""] * len(corners)
-        while len(self._rows) < len(corners):
-            self._rows.append(_Row(len(self._rows), self))
-        self._quiet = True
-        try:
-            for i, ((T, p), kind, event) in enumerate(zip(corners, kinds, events, strict=True)):
-                row = self._rows[i]
-                label = LEG_KINDS[kind].label if kind in LEG_KINDS else kind
-                until = f"<br><span style='font-size:11px'>until {html.escape(event)}</span>"
-                row.label.value = f"<b>{'S' if i == 0 else i}</b> {label}" + (
-                    until if event else ""
-                )
-                row.T.value = _num(convert(T, "K", T_unit, "temperature"), "T")
-                row.p.value = _num(convert(p, "Pa", p_unit, "pressure"), "p")
-                targets = LEG_KINDS[kind].targets if kind in LEG_KINDS else ("T", "p")
-                row.T.disabled = "T" not in targets  # the leg holds T, or T follows from the EOS
-                row.p.disabled = "p" not in targets
-                row.error.value = ""
-        finally:
-            self._quiet = False
-        rows = [r.box for r in self._rows[: len(corners)]]
-        if not corners:
-            rows = [
-                W.HTML(
-                    "<span style='font-size:12px;color:#555'>Click on the diagram to "
-                    "place the start, then click again for each leg, or type a start "
-                    "below.</span>"
-                )
-            ]
-        else:
-            rows.append(self.add_box)
-        if list(self.children) != [self.header, *rows]:
-            self.children = [self.header, *rows]
-
-    def row_error(self, index: int, message: str) -> None:
-        if 0 <= index < len(self._rows):
-            self._rows[index].error.value = (
-                f"<span class='pp-err'>⚠ {html.escape(message)}</span>" if message else ""
-            )
-
-    @property
-    def rows(self) -> list[_Row]:
-        """The rows in use (for tests)."""
-        return [r for r in self._rows if r.box in self.children]
-
-    def _edited(self, index: int, coord: str, text: str) -> None:
-        if self._quiet:
-            return
-        msg = self._on_edit(index, coord, text)
-        self.row_error(index, msg)
-
-    def _deleted(self, index: int) -> None:
-        self.row_error(index, self._on_delete(index))
-
-    def _added(self) -> None:
-        if self._on_add is None:
-            return
-        msg = self._on_add(self.add_kind.value, self.add_target.value)
-        self.add_error.value = f"<span class='pp-err'>⚠ {html.escape(msg)}</span>" if msg else ""
-        if not msg:
-            self.add_target.value = ""
-
-
-class _Row:
-    def __init__(self, index: int, owner: LegList) -> None:
-        self.index = index
-        self.label = W.HTML(layout=W.Layout(width="120px"))
-        self.T = W.Text(continuous_update=False, layout=W.Layout(width="92px"))
-        self.p = W.Text(continuous_update=False, layout=W.Layout(width="92px"))
-        self.delete = W.Button(
-            icon="trash", tooltip=f"delete corner {index or 'S'}", layout=W.Layout(width="34px")
-        )
-        self.error = W.HTML()
-        self.T.observe(lambda ch: owner._edited(index, "T", ch["new"]), names="value")
-        self.p.observe(lambda ch: owner._edited(index, "p", ch["new"]), names="value")
-        self.delete.on_click(lambda _b: owner._deleted(index))
-        self.box = W.VBox(
-            [W.HBox([self.label, self.T, self.p, self.delete]), self.error],
-            layout=W.Layout(margin="0 0 2px 0"),
-        )
-
-
-def _num(x: float, coord: str) -> str:
-    if coord == "T":
-        return f"{x:.2f}"
-    if x == 0 or not math.isfinite(x):
-        return f"{x}"
-    digits = max(0, 4 - int(math.floor(math.log10(abs(x)))))
-    return f"{x:.{digits}f}" if abs(x) < 1e7 else f"{x:.5g}"
 
 
 def crossing_tip(c: Crossing, units: DisplayUnits) -> str:
@@ -280,11 +125,13 @@ def results_html(report: Report | None, units: DisplayUnits) -> str:
     return "".join(out)
 
 
-def cautions_html(report: Report | None) -> str:
-    """The route's cautions, exactly as the core gives them (``Report.cautions``)."""
+def cautions_html(report: Report | None, units: DisplayUnits | None = None) -> str:
+    """The route's cautions as the core gives them (``Report.cautions``), their temperatures
+    and pressures in the display units."""
     if report is None or not report.cautions:
         return ""
-    items = "".join(f"<li>{html.escape(c)}</li>" for c in report.cautions)
+    shown = [in_display_units(c, units) if units is not None else c for c in report.cautions]
+    items = "".join(f"<li>{html.escape(c)}</li>" for c in shown)
     return f"<div class='pp-caution'><b>Cautions</b><ul>{items}</ul></div>"
 
 
@@ -292,7 +139,7 @@ def legend_html(extrapolated: bool = False, kinds: tuple[str, ...] | None = None
     """The legend under the diagram; ``extrapolated`` adds the key of curves beyond their data
     (drawn for substances built from data); ``kinds`` limits the curve keys to the boundary kinds
     the substance has (all three when None)."""
-    from .diagram import STYLE
+    from .canvas import STYLE
 
     def line(kind: str) -> str:
         st = STYLE[kind]
@@ -326,4 +173,24 @@ def legend_html(extrapolated: bool = False, kinds: tuple[str, ...] | None = None
         "stroke='#1d1d1f' stroke-width='2'/></svg> route (drag a corner)</span>"
         + "<span class='pp-key'><svg width='14' height='14'><polygon points='7,1 13,7 7,13 1,7'"
         " fill='#f2b01e' stroke='#1d1d1f' stroke-width='1.2'/></svg> crossing</span></div>"
+    )
+
+
+def energy_legend_html() -> str:
+    """The key of the p–h and T–s diagrams."""
+    from .canvas import STYLE
+
+    def key(color: str, dash: str, text: str) -> str:
+        return (
+            f"<span class='pp-key'><svg width='30' height='10'><line x1='0' y1='5' x2='30' "
+            f"y2='5' stroke='{color}' stroke-width='2.2' {dash}/></svg> {text}</span>"
+        )
+
+    return (
+        "<div class='pp-legend'>"
+        + key(STYLE["vaporization"]["color"], "", "saturated liquid and vapor (the dome)")
+        + key(STYLE["triple"]["color"], "", "triple-point line")
+        + key(STYLE["melting"]["color"], "stroke-dasharray='7 4'", "solid side (melting)")
+        + key(STYLE["sublimation"]["color"], "stroke-dasharray='7 4'", "solid side (sublimation)")
+        + "</div>"
     )

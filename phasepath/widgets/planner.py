@@ -1,62 +1,67 @@
-"""The route planner: draw, edit and read a route on a substance's phase diagram.
+"""The route planner: draw, edit and read a route on three linked views of a substance's phase
+diagram (P–T, p–h, T–s).
 
 State lives in traitlets (``substance``, ``route``, ``report``, the display units, the leg kind
-in force, the event that ends the next drawn leg, the mode). The planner keeps the user's drawing
-as plain data (:mod:`.drawing`), translates the page's events into edits of it (:mod:`.events`),
-keeps the edits for undo (:mod:`.history`), builds a :class:`phasepath.Route` from it through the
-core and analyses it with ``Route.analyze``; it never computes a crossing, a state or a caution
-itself. Each leg is drawn along the path the core gives (:func:`phasepath.paths.route_line`).
-Every change ends in one batched update of the figure, the leg list and the tables
-(``hold_sync`` on each touched widget), so the page redraws once.
+in force, the event that ends the next drawn leg, the mode, the selected corner). The planner
+keeps the user's drawing as plain data (:mod:`.drawing`), translates the page's events into edits
+of it (:mod:`.pointer`, :mod:`.clicks`, :mod:`.events`), keeps the edits for undo
+(:mod:`.history`), builds a :class:`phasepath.Route` from it through the core and analyses it
+with ``Route.analyze``; it never computes a crossing, a state or a caution itself. Each view draws
+the path the core gives (:meth:`phasepath.Report.path`). Every change ends in one batched update
+of the figures, the leg list and the tables (``hold_sync`` on each touched widget), so the page
+redraws once.
 
 >>> import phasepath as pp
 >>> route = pp.Route("CO2", T="-20 degC", p="30 bar").isobar(T="20 degC")
 >>> planner = pp.widgets.RoutePlanner(route)
 >>> planner.report.crossings[0].kind
 'vaporization'
+>>> list(planner.figures)
+['pT', 'ph', 'Ts']
 """
 
 from __future__ import annotations
 
 import contextlib
+import functools
 import html
 from collections.abc import Iterator
-from pathlib import Path
 from typing import Any
 
 import ipywidgets as W
 import traitlets as tl
 
-from ..catalog import registered
+from ..catalog import display_name, registered
 from ..catalog import substance as _substance
 from ..catalog import substances as _substances
+from ..eos import fluid_info
 from ..errors import PhasePathError
 from ..format import DisplayUnits
-from ..paths import route_line
-from ..records import EVENTS, LEG_KINDS
+from ..paths import route_line, route_states
+from ..records import LEG_KINDS, StatePoint
 from ..report import Report
 from ..route import Route
 from ..substances import Substance
 from ..units import ENERGY_UNITS, PRESSURE_UNITS, TEMPERATURE_UNITS, parse_quantity
-from . import drawing, events, export
+from ..views import VIEWS, coordinates
+from . import controls, drawing, events, export, shapes
+from .canvas import ViewCanvas
 from .diagram import PhaseDiagram
+from .documents import Documents
+from .energy import EnergyDiagram
 from .history import History
-from .panels import CSS, LegList, cautions_html, crossing_tip, legend_html, results_html
+from .panels import cautions_html, legend_html, results_html
+from .pointer import PointerEvents
+from .readout import in_display_units
 
 __all__ = ["RoutePlanner"]
 
-_KINDS = ("auto", *drawing.KINDS)
-_KIND_BUTTONS = [("auto", "auto", "pick constant T or constant p from the click's direction")] + [
-    (kind.label, name, f"next leg: {kind.device}") for name, kind in LEG_KINDS.items()
-]
-#: Events offered for ending a drawn constant-p or constant-T leg ("" = at the click).
-_EVENT_CHOICES = (*EVENTS, "5 K superheat", "5 K subcooling")
-_UNIT_TEXT = {"degC": "°C", "degF": "°F", "K": "K"}
 _HISTORY = 200  # undo steps kept
 
 
-class RoutePlanner(W.VBox):
-    """A phase diagram on which a route is drawn with the mouse or typed in, with its results.
+class RoutePlanner(PointerEvents, Documents, W.VBox):
+    """Three linked views of a route (P–T, p–h, T–s) drawn with the mouse or typed in, with its
+    results.
 
     Parameters
     ----------
@@ -67,7 +72,7 @@ class RoutePlanner(W.VBox):
         A route to draw (its substance wins over ``substance``).
     T_unit, p_unit, energy_unit : str
         Display units: ``"K"``, ``"degC"``, ``"degF"``; ``"Pa"``, ``"kPa"``, ``"bar"``, ``"MPa"``,
-        ``"psi"``, ``"atm"``; ``"J/kg"``, ``"kJ/kg"``, ``"Btu/lb"``.
+        ``"psi"``, ``"atm"``; ``"J/kg"``, ``"kJ/kg"``, ``"Btu/lb"`` (entropy follows it).
 
     Attributes
     ----------
@@ -76,14 +81,14 @@ class RoutePlanner(W.VBox):
         route of the substance; ``message`` then says why). Assigning a route draws it.
     report : Report or None
         The analysis of ``route`` (None without legs).
-    leg_kind : str
-        The kind of the next leg drawn with the mouse: "auto" (constant T or constant p, from the
-        click's direction), or a kind of :data:`phasepath.records.LEG_KINDS`.
-    until : str
-        An event that ends the next constant-p or constant-T leg instead of the click's
-        coordinate ("fully vapor", "first solid", "5 K superheat", ...); "" for the click.
-    message : str
-        The last error or status, as shown above the table.
+    figures : dict
+        The three bqplot figures, keyed by view: ``"pT"``, ``"ph"``, ``"Ts"``.
+    selected : int or None
+        The selected corner (0 is the start), marked in every view and in the leg list.
+    leg_kind, until, mode, message
+        The kind of the next leg drawn ("auto" or a kind of
+        :data:`phasepath.records.LEG_KINDS`), the event that ends it ("" for the click), "draw"
+        or "pan", and the last error or status shown.
     """
 
     substance = tl.Unicode("CarbonDioxide")
@@ -92,10 +97,11 @@ class RoutePlanner(W.VBox):
     T_unit = tl.Enum(TEMPERATURE_UNITS, "degC")
     p_unit = tl.Enum(PRESSURE_UNITS, "bar")
     energy_unit = tl.Enum(ENERGY_UNITS, "kJ/kg")
-    leg_kind = tl.Enum(_KINDS, "auto")
+    leg_kind = tl.Enum(controls.KIND_CHOICES, "auto")
     until = tl.Unicode("")
     mode = tl.Enum(("draw", "pan"), "draw")
     message = tl.Unicode("")
+    selected = tl.Int(None, allow_none=True)
 
     def __init__(
         self,
@@ -114,19 +120,31 @@ class RoutePlanner(W.VBox):
         self._busy = True
         self._history = History(_HISTORY)
         self._valid = True
-        self._shown: list[tuple[float, float]] = []
         self._corners: list[tuple[float, float]] = []  # of the drawing in force (SI)
-        self._path: list[tuple[float, float]] | None = None  # along every leg (SI)
+        self._states: list[StatePoint | None] = []  # the state at each corner
+        self._path: list[StatePoint] = []  # along the whole route (p-h and T-s)
+        self._view_crossings: dict[str, list[Any]] = {}
         self._sub: Substance = sub
         self._names: tuple[str, ...] = ()
+        self._by_name: dict[str, Any] = {}
         self.T_unit, self.p_unit, self.energy_unit = T_unit, p_unit, energy_unit
         self.substance = sub.name
-        self.diagram = PhaseDiagram(T_unit, p_unit)
-        self._build_controls()
-        self._layout()
+        units = self.units
+        self.canvases: dict[str, ViewCanvas] = {
+            "pT": PhaseDiagram(units),
+            "ph": EnergyDiagram("ph", units),
+            "Ts": EnergyDiagram("Ts", units),
+        }
+        self.diagram: PhaseDiagram = self.canvases["pT"]  # type: ignore[assignment]
+        self.figures = {view: self.canvases[view].figure for view in VIEWS}
+        self._names = self._picker_names()
+        controls.build(self)
+        self.children = controls.arrange(self)
+        self._wire()
         self._busy = False
         self._spec = drawing.from_route(route) if route is not None else drawing.empty(_key_of(sub))
-        self.diagram.set_substance(sub)
+        for c in self.canvases.values():
+            c.set_substance(sub)
         self.legend.value = _legend(sub)
         self._apply(self._spec, fit=True)
 
@@ -135,92 +153,7 @@ class RoutePlanner(W.VBox):
         """The display units in force."""
         return DisplayUnits(self.T_unit, self.p_unit, self.energy_unit)
 
-    # -- construction --------------------------------------------------------------------------
-    def _build_controls(self) -> None:
-        self._names = self._picker_names()
-        self.picker = W.Combobox(
-            options=list(self._names),
-            ensure_option=False,
-            continuous_update=False,
-            placeholder="type to filter…",
-            description="Substance",
-            layout=W.Layout(width="260px"),
-        )
-        self.kind_toggle = W.ToggleButtons(
-            options=[(label, kind) for label, kind, _ in _KIND_BUTTONS],
-            value="auto",
-            tooltips=[tip for _, _, tip in _KIND_BUTTONS],
-            style={"button_width": "84px"},
-        )
-        self.until_pick = W.Combobox(
-            options=list(_EVENT_CHOICES),
-            value="",
-            ensure_option=False,
-            continuous_update=False,
-            placeholder="at the click",
-            description="ends",
-            tooltip="end the next constant-p or constant-T leg on an event",
-            style={"description_width": "initial"},
-            layout=W.Layout(width="165px"),
-        )
-        self.mode_toggle = W.ToggleButtons(
-            options=[("draw", "draw"), ("pan/zoom", "pan")],
-            value="draw",
-            style={"button_width": "80px"},
-            tooltips=[
-                "clicks add corners; drag a corner to move it",
-                "drag to pan, scroll to zoom",
-            ],
-        )
-        button = W.Layout(width="80px")
-        self.fit_btn = W.Button(
-            description="fit",
-            icon="expand",
-            tooltip="show the whole route",
-            layout=W.Layout(width="70px"),
-        )
-        self.undo_btn = W.Button(description="undo", icon="undo", layout=button)
-        self.redo_btn = W.Button(description="redo", icon="repeat", layout=button)
-        self.clear_btn = W.Button(description="clear", icon="eraser", layout=button)
-        initial = {"description_width": "initial"}
-        self.T_pick = W.Dropdown(
-            options=[(_UNIT_TEXT[u], u) for u in TEMPERATURE_UNITS],
-            description="temperature",
-            style=initial,
-            layout=W.Layout(width="170px"),
-        )
-        self.p_pick = W.Dropdown(
-            options=list(PRESSURE_UNITS),
-            description="pressure",
-            style=initial,
-            layout=W.Layout(width="160px"),
-        )
-        self.e_pick = W.Dropdown(
-            options=list(ENERGY_UNITS),
-            description="energy",
-            style=initial,
-            layout=W.Layout(width="160px"),
-        )
-        self.start_T = W.Text(placeholder="T, e.g. 25 degC", layout=W.Layout(width="120px"))
-        self.start_p = W.Text(placeholder="p, e.g. 1 bar", layout=W.Layout(width="120px"))
-        self.start_btn = W.Button(description="place start", layout=W.Layout(width="110px"))
-        self.start_msg = W.HTML()
-        self.legs = LegList(self._edit_corner, self._delete_corner, self._typed_leg)
-        self.status = W.HTML()
-        self.results = W.HTML()
-        self.legend = W.HTML(legend_html())
-        self.cautions = W.HTML()
-        self.files_btn = W.Button(
-            description="files",
-            icon="download",
-            layout=button,
-            tooltip="prepare route.json, crossings.csv and legs.csv of the route shown",
-        )
-        self.downloads = W.HTML(export.ON_REQUEST)
-        self.png_btn = W.Button(description="PNG", icon="image", layout=button)
-        self.svg_btn = W.Button(description="SVG", icon="image", layout=button)
-        self.style_html = W.HTML(CSS, layout=W.Layout(height="0px", overflow="hidden"))
-
+    def _wire(self) -> None:
         self.picker.observe(self._picked, names="value")
         for trait, control in (
             ("leg_kind", self.kind_toggle),
@@ -239,68 +172,10 @@ class RoutePlanner(W.VBox):
         self.files_btn.on_click(lambda _b: self.prepare_files())
         self.png_btn.on_click(lambda _b: self.save_png())
         self.svg_btn.on_click(lambda _b: self.save_svg())
-        c = self.diagram.corners
-        c.observe(self._corners_changed, names=["x", "y"])
-        c.on_drag(self._dragging)
-        c.on_hover(self._hover_corner)
-        self.diagram.crossings.on_hover(self._hover_crossing)
-
-    def _layout(self) -> None:
-        bar = W.HBox(
-            [
-                self.picker,
-                self.kind_toggle,
-                self.until_pick,
-                self.mode_toggle,
-                self.fit_btn,
-                self.undo_btn,
-                self.redo_btn,
-                self.clear_btn,
-            ],
-            layout=W.Layout(flex_flow="row wrap", align_items="center"),
-        )
-        units = W.HBox(
-            [W.HTML("<b>Units</b>&nbsp;&nbsp;"), self.T_pick, self.p_pick, self.e_pick],
-            layout=W.Layout(align_items="center"),
-        )
-        self.start_box = W.VBox(
-            [
-                W.HTML("<div class='pp-h'>Start state</div>"),
-                W.HBox([self.start_T, self.start_p, self.start_btn]),
-                W.HTML(
-                    "<span style='font-size:11px;color:#555'>p may be a fill density "
-                    "instead (e.g. 450 kg/m3)</span>"
-                ),
-                self.start_msg,
-            ]
-        )
-        side = W.VBox(
-            [self.start_box, self.legs], layout=W.Layout(flex="0 0 380px", padding="0 0 0 12px")
-        )
-        plot = W.VBox(
-            [self.diagram.figure, self.legend, self.diagram.css], layout=W.Layout(flex="1 1 auto")
-        )
-        files = W.HBox(
-            [
-                W.HTML("<b>Export</b>&nbsp;"),
-                self.files_btn,
-                self.downloads,
-                W.HTML("&nbsp;diagram:&nbsp;"),
-                self.png_btn,
-                self.svg_btn,
-            ],
-            layout=W.Layout(align_items="center", flex_flow="row wrap"),
-        )
-        self.children = [
-            self.style_html,
-            bar,
-            units,
-            W.HBox([plot, side]),
-            self.status,
-            self.results,
-            files,
-            self.cautions,
-        ]
+        self.title_field.observe(lambda ch: self._doc_edited("title", ch["new"]), names="value")
+        self.notes_field.observe(lambda ch: self._doc_edited("notes", ch["new"]), names="value")
+        self.upload.observe(self._uploaded, names="value")
+        self._connect_pointer()
 
     # -- public --------------------------------------------------------------------------------
     def undo(self) -> None:
@@ -317,11 +192,23 @@ class RoutePlanner(W.VBox):
 
     def clear(self) -> None:
         """Remove every corner (undoable)."""
-        self._commit(drawing.empty(self.substance), force=True)
+        self._commit(drawing.empty(_key_of(self._sub)), force=True)
+
+    def select(self, index: int | None) -> None:
+        """Select corner ``index`` (None: none) in every view and in the leg list."""
+        if index is not None and not 0 <= index < len(self._corners):
+            index = None
+        self.selected = index
 
     def fit(self) -> None:
-        """Show the whole diagram and the whole route."""
-        self.diagram.set_window(*self.diagram.fit_window(list(self._corners)))
+        """Show the whole route in every view, with the curves it reaches."""
+        forms = sorted({st.form for st in self._path if st.form} | self._crossed_forms())
+        pts = list(self._corners) + self._line_pT()
+        self.diagram.set_window(*self.diagram.fit_window(pts, forms))
+        for view in ("ph", "Ts"):
+            c = self.canvases[view]
+            xy = [coordinates(st, view) for st in self._path or self._known_states()]
+            c.set_window(*c.fit_window([q for q in xy if q is not None]))  # type: ignore[attr-defined]
 
     def add_corner(self, T: object, p: object, kind: str | None = None) -> str:
         """Add the next corner at (T, p) as a click would (snapped to ``kind``, or to
@@ -340,43 +227,6 @@ class RoutePlanner(W.VBox):
         coordinate the kind moves along. Returns the error message, or "" when it was added."""
         text = f"until {until}" if until else ("" if target is None else str(target))
         return self._typed_leg(kind, text)
-
-    def prepare_files(self) -> None:
-        """Build the download links (route.json, crossings.csv, legs.csv) of the route shown;
-        they are built on request only, and withdrawn when the route changes."""
-        self.downloads.value = export.download_links(self.route, self.report, self.units)
-
-    def crossings_table(self) -> Any:
-        """The crossings as a DataFrame in the display units (empty without a report)."""
-        import pandas as pd
-
-        if self.report is None:
-            return pd.DataFrame()
-        return self.report.table(self.T_unit, self.p_unit, self.energy_unit)
-
-    def legs_table(self) -> Any:
-        """Heat and work per leg as a DataFrame in the display units."""
-        import pandas as pd
-
-        if self.report is None:
-            return pd.DataFrame()
-        return self.report.legs_table(self.T_unit, self.p_unit, self.energy_unit)
-
-    def save_route(self, path: str | Path) -> Path:
-        """Save the current route as a route file (JSON or YAML by suffix)."""
-        return export.save_route_file(self.route, path, self.message)
-
-    def save_table(self, path: str | Path) -> Path:
-        """Save the crossings table as CSV in the display units."""
-        return export.save_crossings_csv(self.report, path, self.units)
-
-    def save_png(self, filename: str = "phase-route.png") -> None:
-        """Download the diagram as PNG (done by the browser showing the planner)."""
-        self.diagram.figure.save_png(filename)
-
-    def save_svg(self, filename: str = "phase-route.svg") -> None:
-        """Download the diagram as SVG (done by the browser showing the planner)."""
-        self.diagram.figure.save_svg(filename)
 
     # -- trait observers -----------------------------------------------------------------------
     @tl.observe("route")
@@ -404,80 +254,31 @@ class RoutePlanner(W.VBox):
     def _units_set(self, change: dict[str, Any]) -> None:
         if self._busy:
             return
-        self.diagram.set_units(self.T_unit, self.p_unit)
+        for c in self.canvases.values():
+            c.set_units(self.units)
         self._refresh()
 
     @tl.observe("mode")
     def _mode_set(self, change: dict[str, Any]) -> None:
-        self.diagram.set_mode(change["new"])
+        for c in self.canvases.values():
+            c.set_mode(change["new"])
 
-    # -- events from the page ------------------------------------------------------------------
+    @tl.observe("selected")
+    def _selected_set(self, change: dict[str, Any]) -> None:
+        if not self._busy:
+            self._refresh()
+
+    # -- events from the controls --------------------------------------------------------------
     def _picked(self, change: dict[str, Any]) -> None:
         if self._busy or not change["new"]:
             return
         try:
-            sub = self._resolve(change["new"])
+            sub = self._resolve(self._by_name.get(change["new"], change["new"]))
         except PhasePathError as exc:
             self._say(str(exc))
             return
         if sub is not self._sub:
             self._switch(sub)
-
-    def _corners_changed(self, change: dict[str, Any]) -> None:
-        """A click added a point to the corner Scatter, or a drag ended and moved one."""
-        if self._busy:
-            return
-        c = self.diagram.corners
-        x, y = list(c.x), list(c.y)
-        what, i = events.read_change(self._shown, x, y)
-        if what in ("add", "move") and i is not None:
-            Ts, ps = events.point_text(x[i], y[i], self.units)
-            if what == "add":
-                self._add(Ts, ps, None)
-            else:
-                self._move(i, Ts, ps)
-        elif what == "redraw":
-            self._redraw()
-
-    def _dragging(self, _mark: Any, event: dict[str, Any]) -> None:
-        """While a corner is dragged: move only the route line, straight between the corners
-        (no analysis; the true path is drawn when the drag ends)."""
-        try:
-            i = int(event["index"])
-            Ts, ps = events.point_text(event["point"]["x"], event["point"]["y"], self.units)
-            spec = drawing.move_corner(self._spec, i, Ts, ps)
-            self.diagram.preview_route(drawing.corners(spec))
-        except (KeyError, TypeError, ValueError, IndexError):
-            return
-
-    def _hover_corner(self, _mark: Any, event: dict[str, Any]) -> None:
-        i = events.event_index(event)
-        pts = self._corners
-        if i is None or i >= len(pts):
-            return
-        T, p = pts[i]
-        phase = ""
-        if self.report is not None:
-            legs = self.report.legs
-            st = legs[0].start if i == 0 else legs[min(i, len(legs)) - 1].end
-            phase = f"<br>{html.escape(_state_text(st))}"
-        self.diagram.corners.tooltip.value = (
-            f"<div class='pp-tip'><b>corner {'S' if i == 0 else i}</b><br>"
-            f"{self.diagram.fmt_T(T)}<br>{self.diagram.fmt_p(p)}{phase}</div>"
-        )
-
-    def _hover_crossing(self, _mark: Any, event: dict[str, Any]) -> None:
-        i = events.event_index(event)
-        if self.report is None or i is None or i >= len(self.report.crossings):
-            return
-        c = self.report.crossings[i]
-        self.diagram.crossings.tooltip.value = (
-            "<div class='pp-tip'>"
-            + html.escape(crossing_tip(c, self.units))
-            + (f"<br>{html.escape(c.detail)}" if c.detail else "")
-            + "".join(f"<br>⚠ {html.escape(h.kind)}: {html.escape(h.reason)}" for h in c.hazards)
-            + "</div>"
-        )
 
     def _edit_corner(self, index: int, coord: str, typed: str) -> str:
         if index == 0 and coord == "p" and events.is_density(typed):
@@ -498,26 +299,6 @@ class RoutePlanner(W.VBox):
             return self._say(str(exc), keep_fields=True)
         return self._commit(spec)
 
-    def _typed_start(self) -> None:
-        try:
-            Ts = events.typed_text(self.start_T.value, "temperature", self.units)
-            if events.is_density(self.start_p.value):
-                ps, density = None, self.start_p.value.strip()
-            else:
-                ps = events.typed_text(self.start_p.value, "pressure", self.units)
-                density = None
-        except PhasePathError as exc:
-            self.start_msg.value = f"<span class='pp-err'>⚠ {html.escape(str(exc))}</span>"
-            return
-        if density is not None:
-            spec = drawing.copy_with_start(self._spec, T=Ts, density=density)
-        elif self._spec["start"] is None:
-            spec = drawing.add_corner(self._spec, Ts, ps or "", "isobar")
-        else:
-            spec = drawing.move_corner(self._spec, 0, Ts, ps)
-        msg = self._commit(spec, fit=True)
-        self.start_msg.value = f"<span class='pp-err'>⚠ {html.escape(msg)}</span>" if msg else ""
-
     def _typed_leg(self, kind: str, typed: str) -> str:
         """A leg typed in the leg list (see :func:`phasepath.widgets.events.typed_target`)."""
         try:
@@ -531,10 +312,13 @@ class RoutePlanner(W.VBox):
     def _add(self, T_text: str, p_text: str, kind: str | None) -> str:
         kind = kind or self.leg_kind
         if kind == "auto":
-            window = self.diagram.window() or self.diagram.fit_window(self._corners)
             last = self._corners[-1] if self._corners else None
-            T1 = parse_quantity(T_text, "temperature")
-            p1 = parse_quantity(p_text, "pressure")
+            window = self.diagram.window() or self.diagram.default_window()
+            try:
+                T1 = parse_quantity(T_text, "temperature")
+                p1 = parse_quantity(p_text, "pressure")
+            except PhasePathError as exc:
+                return self._say(str(exc))
             kind = events.auto_kind(last, T1, p1, window)
         until = self.until.strip() if "until" in LEG_KINDS[kind].targets else ""
         try:
@@ -556,8 +340,7 @@ class RoutePlanner(W.VBox):
             spec = drawing.move_corner(self._spec, index, T_text, p_text)
         except (IndexError, PhasePathError) as exc:
             msg = self._say(str(exc), keep_fields=keep_fields)
-            if not keep_fields:
-                self._redraw()  # the dragged corner goes back where it was
+            self._redraw()  # a dragged corner goes back where it was
             return msg
         return self._commit(spec, keep_fields=keep_fields)
 
@@ -575,8 +358,7 @@ class RoutePlanner(W.VBox):
         err = result[2]
         if err and not force and self._valid:
             self._say(err, keep_fields=keep_fields)
-            if not keep_fields:
-                self._redraw()
+            self._redraw()
             return err
         self._history.push(self._spec)
         self._apply(spec, fit=fit, result=result)
@@ -584,16 +366,18 @@ class RoutePlanner(W.VBox):
 
     def _switch(self, sub: Substance) -> None:
         self._use_substance(sub)
+        self._clear_notes()
         self._commit({**self._spec, "substance": _key_of(sub)}, force=True, fit=True)
 
     def _use_substance(self, sub: Substance) -> None:
-        """Make ``sub`` the planner's substance: the trait, the diagram's curves, the legend."""
+        """Make ``sub`` the planner's substance: the trait, the diagrams' curves, the legend."""
         if sub is self._sub and self.substance == sub.name:
             return
         self._sub = sub
         with self._quiet():
             self.substance = sub.name
-        self.diagram.set_substance(sub)
+        for c in self.canvases.values():
+            c.set_substance(sub)
         self.legend.value = _legend(sub)
 
     def _resolve(self, name: object) -> Substance:
@@ -603,7 +387,15 @@ class RoutePlanner(W.VBox):
             return name
         if isinstance(name, str) and name == self._sub.name:
             return self._sub
+        if isinstance(name, str) and name in self._by_name:
+            return self._resolve(self._by_name[name])
         return _substance(name)
+
+    def _clear_notes(self) -> None:
+        """Messages whose cause is gone: rejected entries, the start box's and the typed leg's."""
+        self.legs.clear_rejections()
+        self.legs.add_error.value = ""
+        self.start_msg.value = ""
 
     # -- state -> view -------------------------------------------------------------------------
     def _apply(
@@ -626,11 +418,29 @@ class RoutePlanner(W.VBox):
         except PhasePathError:
             self._corners = []
         ok = report is not None and not msg
-        self._path = route_line(report.substance, report.legs, report.crossings) if ok else None
+        self._states = shapes.corner_states(route if not msg else None, report if ok else None)
+        self._path = route_states(sub, report.legs, report.crossings) if ok and report else []
         with self._quiet():
             self.route = route if not msg else None
-            self.set_trait("report", report if not msg else None)
+            self.set_trait("report", report if ok else None)
+            if self.selected is not None and self.selected >= len(self._corners):
+                self.selected = None
+        if not msg:
+            self._clear_notes()
         self._refresh(msg, fit=fit)
+
+    def _line_pT(self) -> list[tuple[float, float]]:
+        rep = self.report
+        return route_line(rep.substance, rep.legs, rep.crossings) if rep is not None else []
+
+    def _known_states(self) -> list[StatePoint]:
+        return [st for st in self._states if st is not None]
+
+    def _crossed_forms(self) -> set[str]:
+        rep = self.report
+        if rep is None:
+            return set()
+        return {f for c in rep.crossings for f in (c.from_form, c.to_form) if f}
 
     def _refresh(self, msg: str | None = None, fit: bool = False) -> None:
         if msg is None:
@@ -639,17 +449,20 @@ class RoutePlanner(W.VBox):
         with self._batch():
             if fit:
                 self.fit()
-            self._draw_route(pts)
+            self._draw_route()
             kinds = ["start"] + [leg["kind"] for leg in self._spec["legs"]]
             ends = [""] + [str(leg.get("until", "")) for leg in self._spec["legs"]]
             if self.route is not None:  # the core's words for the event ("fully vapor at ...")
-                ends = [""] + [leg.event or "" for leg in self.route.legs]
-            self.legs.show(pts, kinds[: len(pts)], self.T_unit, self.p_unit, ends[: len(pts)])
+                ends = [""] + [in_display_units(leg.event, self.units) for leg in self.route.legs]
+            states = (self._states + [None] * len(pts))[: len(pts)]
+            self.legs.show(
+                pts, kinds[: len(pts)], self.units, ends[: len(pts)], states, self.selected
+            )
             self.start_box.layout.display = "none" if pts else None
             self.results.value = results_html(self.report, self.units)
             if self.downloads.value != export.ON_REQUEST:
                 self.downloads.value = export.ON_REQUEST  # links of an older route: withdrawn
-            self.cautions.value = cautions_html(self.report)
+            self.cautions.value = cautions_html(self.report, self.units)
             self.undo_btn.disabled = not self._history.can_undo
             self.redo_btn.disabled = not self._history.can_redo
             names = self._picker_names()
@@ -657,43 +470,62 @@ class RoutePlanner(W.VBox):
                 self._names = names
                 self.picker.options = list(names)
             with self._quiet():
-                self.picker.value = self._sub.name
+                self.picker.value = self._label_of(self._sub)
+                self.title_field.value = str(self._spec.get("title", "") or "")
+                self.notes_field.value = str(self._spec.get("notes", "") or "")
             self._say(msg)
 
     def _redraw(self) -> None:
         with self._batch():
-            self._draw_route(self._corners)
+            self._draw_route()
 
-    def _draw_route(self, pts: list[tuple[float, float]]) -> None:
+    def _draw_route(self) -> None:
+        rep = self.report if self._valid else None
         with self._quiet():
-            self.diagram.set_route(pts, valid=self._valid, path=self._path if self._valid else None)
-            self._shown = list(zip(self.diagram.corners.x, self.diagram.corners.y, strict=True))
-        cross = [(c.T, c.p) for c in self.report.crossings] if self.report else []
-        self.diagram.set_crossings(cross)
+            for view, c in self.canvases.items():
+                states = self._states if self._valid else []
+                shape = shapes.view_shape(
+                    view, self._corners, states, self._path, self._line_pT(), rep
+                )
+                self._view_crossings[view] = shape.records
+                c.set_route(shape.corners, shape.line, shape.crossings, self._valid, self.selected)
 
     def _say(self, msg: str, keep_fields: bool = False) -> str:
         self.message = msg
         if msg:
-            self.status.value = f"<div class='pp-status pp-bad'>⚠ {html.escape(msg)}</div>"
+            shown = html.escape(self._shown(msg))
+            self.status.value = f"<div class='pp-status pp-bad'>⚠ {shown}</div>"
         elif self.report is not None:
             n = len(self.report.crossings)
             nh = len(self.report.cautions)
             flags = f", {nh} caution(s): see the tables and the cautions" if nh else ""
             self.status.value = (
-                f"<div class='pp-status pp-ok'>{html.escape(self._sub.name)}: "
+                f"<div class='pp-status pp-ok'>{html.escape(display_name(self._sub))}: "
                 f"{len(self.report.legs)} leg(s), {n} crossing(s){flags}.</div>"
             )
         else:
             self.status.value = ""
         return msg
 
+    def _shown(self, msg: str) -> str:
+        """A core message with its numbers in the display units."""
+        return in_display_units(msg, self.units)
+
     # -- helpers -------------------------------------------------------------------------------
+    def _label_of(self, sub: Substance) -> str:
+        try:
+            return display_name(sub) if sub.named else sub.name
+        except PhasePathError:
+            return sub.name
+
     def _picker_names(self) -> tuple[str, ...]:
-        """Substances built from data in this session first, then the reference substances."""
+        """Substances built from data in this session first, then the pure reference substances
+        by their plain names with formula ("carbon dioxide (CO2)")."""
         custom = [n for n in registered() if n]
         if self._sub.name not in custom and not self._sub.named:
             custom.append(self._sub.name)
-        return tuple(custom + sorted(_substances(), key=str.lower))
+        shown, self._by_name = _reference_names()
+        return tuple(custom) + shown
 
     @contextlib.contextmanager
     def _quiet(self) -> Iterator[None]:
@@ -707,8 +539,10 @@ class RoutePlanner(W.VBox):
     def _batch(self) -> Iterator[None]:
         """Hold every touched widget's messages until the end: the page redraws once."""
         with contextlib.ExitStack() as stack:
+            for c in self.canvases.values():
+                for w in c.widgets():
+                    stack.enter_context(w.hold_sync())
             for w in [
-                *self.diagram.widgets(),
                 self.legs,
                 self.results,
                 self.status,
@@ -716,6 +550,8 @@ class RoutePlanner(W.VBox):
                 self.cautions,
                 self.start_box,
                 self.picker,
+                self.title_field,
+                self.notes_field,
             ]:
                 stack.enter_context(w.hold_sync())
             yield
@@ -738,6 +574,14 @@ def _evaluate(spec: drawing.Spec) -> tuple[Route | None, Report | None, str]:
         )
 
 
+@functools.lru_cache(maxsize=1)
+def _reference_names() -> tuple[tuple[str, ...], dict[str, str]]:
+    """The pure reference substances by their plain names, and name -> CoolProp name (blends
+    are not pure substances: not offered)."""
+    by_name = {display_name(n): n for n in _substances() if fluid_info(n, "pure") == "true"}
+    return tuple(sorted(by_name, key=str.lower)), by_name
+
+
 def _key_of(sub: Substance) -> Any:
     """How a drawing names a substance: its name, or the substance itself where the name alone
     would not find it again (built from data under a reference substance's name)."""
@@ -750,12 +594,3 @@ def _key_of(sub: Substance) -> Any:
 def _legend(sub: Substance) -> str:
     ranged = any(b.T_valid is not None for b in sub.boundaries)
     return legend_html(ranged, tuple({b.kind for b in sub.boundaries}))
-
-
-def _state_text(st: Any) -> str:
-    parts = []
-    if st.vapor_fraction is not None:
-        parts.append(f"vapor {st.vapor_fraction:.1%}")
-    if st.solid_fraction is not None:
-        parts.append(f"solid {st.solid_fraction:.1%}")
-    return st.text + (f", {', '.join(parts)} by mass" if parts else "")

@@ -6,6 +6,7 @@ download). Without it the tests are skipped with the reason; CI installs it (scr
 
 from __future__ import annotations
 
+import contextlib
 import json
 import os
 import shutil
@@ -16,6 +17,7 @@ import sys
 import time
 import urllib.error
 import urllib.request
+from collections.abc import Iterator
 from pathlib import Path
 
 import pytest
@@ -82,23 +84,13 @@ def chromium_path() -> str:
     return path
 
 
-@pytest.fixture(scope="session")
-def voila_url(tmp_path_factory: pytest.TempPathFactory, chromium_path: str):
-    """Serve a notebook with an empty CO2 route planner under Voila; yield its URL."""
+@contextlib.contextmanager
+def serve(home: Path, cells: list[str], extra: tuple[str, ...] = ()) -> Iterator[str]:
+    """Serve a notebook of ``cells`` under Voila on 127.0.0.1 (a free port); yield its URL and
+    stop the server and its kernels afterwards (by pid)."""
     psutil = pytest.importorskip("psutil")
-    home = tmp_path_factory.mktemp("voila")
-    nb = home / "planner_test.ipynb"
-    nb.write_text(
-        json.dumps(
-            notebook(
-                [
-                    "import phasepath as pp\n"
-                    "planner = pp.widgets.RoutePlanner('CO2', T_unit='degC', p_unit='bar')\n"
-                    "planner",
-                ]
-            )
-        )
-    )
+    nb = home / "page.ipynb"
+    nb.write_text(json.dumps(notebook(cells)))
     env = dict(os.environ)
     for var, sub in (
         ("JUPYTER_CONFIG_DIR", "config"),
@@ -108,7 +100,7 @@ def voila_url(tmp_path_factory: pytest.TempPathFactory, chromium_path: str):
         ("JUPYTERLAB_WORKSPACES_DIR", "workspaces"),
         ("IPYTHONDIR", "ipython"),
     ):
-        (home / sub).mkdir()
+        (home / sub).mkdir(exist_ok=True)
         env[var] = str(home / sub)
     env["PYTHONPATH"] = os.pathsep.join([str(REPO), env.get("PYTHONPATH", "")]).rstrip(os.pathsep)
     port = _free_port()
@@ -122,6 +114,7 @@ def voila_url(tmp_path_factory: pytest.TempPathFactory, chromium_path: str):
             f"--port={port}",
             "--Voila.ip=127.0.0.1",
             "--Voila.port_retries=0",
+            *extra,
             str(nb),
         ],
         cwd=home,
@@ -162,6 +155,33 @@ def voila_url(tmp_path_factory: pytest.TempPathFactory, chromium_path: str):
             except psutil.NoSuchProcess:
                 pass
         log.close()
+
+
+@pytest.fixture(scope="session")
+def voila_url(tmp_path_factory: pytest.TempPathFactory, chromium_path: str):
+    """Serve a notebook with an empty CO2 route planner under Voila; yield its URL."""
+    cells = [
+        "import phasepath as pp\n"
+        "planner = pp.widgets.RoutePlanner('CO2', T_unit='degC', p_unit='bar')\n"
+        "planner",
+    ]
+    with serve(tmp_path_factory.mktemp("voila"), cells) as url:
+        yield url
+
+
+@pytest.fixture(scope="session")
+def sweepmap_url(tmp_path_factory: pytest.TempPathFactory, chromium_path: str):
+    """Serve a notebook with a sweep map of an invented CO2 vent (a 6 x 4 grid)."""
+    cells = [
+        "import phasepath as pp\n"
+        "plan = pp.Route('CO2', T='20 degC', p='60 bar', title='demo vent').isenthalp(p='1 atm')\n"
+        "df = pp.sweep(plan, start_T=[275.0, 285.0, 295.0, 305.0, 315.0, 325.0],\n"
+        "              start_p=[60e5, 75e5, 90e5, 105e5], progress=False)\n"
+        "m = pp.widgets.SweepMap(df, color='end_solid_fraction')\n"
+        "m",
+    ]
+    with serve(tmp_path_factory.mktemp("sweepmap"), cells) as url:
+        yield url
 
 
 @pytest.fixture()
