@@ -46,9 +46,11 @@ from .paths import trace
 from .records import (
     BASES,
     CURVED_KINDS,
+    TOLERANCE,
     Crossing,
     LegSummary,
     StatePoint,
+    boundary_kind,
     boundary_of,
     crossing_kind,
     describe_change,
@@ -66,8 +68,6 @@ __all__ = ["analyze", "range_warnings", "TOLERANCE", "cache_clear"]
 #: Relative distance below which a candidate counts as sitting on a leg's end, and below which
 #: two candidates count as one point (three curves meeting at a triple point).
 _END_TOL = 1e-9
-#: Guaranteed relative agreement between a crossing and its boundary.
-TOLERANCE = 1e-9
 
 
 @dataclass(frozen=True)
@@ -149,6 +149,8 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
             else (_single(sub, walk.path[-1], end_key))
         )
         heat, work, note = leg_heat_work(leg.kind, start, end, basis)
+        for flag in dict.fromkeys(c.flag for c in found if c.flag):
+            note += f"; {flag}"
         if leg.kind == "isenthalp" and end.p > start.p:
             note += "; pressure rises at constant enthalpy: no valve does this"
         hazards = leg_hazards(sub, leg.kind, list(walk.path), found, leg.event)
@@ -314,8 +316,26 @@ def _crossing(
         at_corner=where == "corner",
         detail=describe_change(before[0], after[0]),
     )
+    flag = _flag(sub, c)
+    if flag:
+        c = replace(c, flag=flag)
     hz = crossing_hazards(sub, leg_kind, c)
     return replace(c, hazards=hz) if hz else c
+
+
+def _flag(sub: Substance, c: Crossing) -> str:
+    """What to know about the curve a crossing lies on (see ``Crossing.flag``)."""
+    for b in sub.boundaries:
+        if b.label == c.boundary or (
+            c.at_corner and b.kind == boundary_kind(c.kind) and b.T_min <= c.T <= b.T_max
+        ):
+            if not b.reliable:
+                return b.note
+    if c.kind in ("melting", "freezing", "sublimation", "deposition") and sub.in_melting_gap(
+        c.T, c.p
+    ):
+        return sub.melting_gap()
+    return ""
 
 
 def _ambient_note(sub: Substance, elevation: float) -> str:

@@ -62,10 +62,11 @@ def crossing_hazards(sub: Substance, leg_kind: str, c: Crossing) -> tuple[Hazard
     out = []
     if LEG_KINDS[leg_kind].flowing and "solid" in c.to_phase and "solid" not in c.from_phase:
         name = sub.solids.name
+        flag = f" ({c.flag})" if c.flag else ""
         out.append(
             Hazard(
                 "solid-formation",
-                f"{name} forms at T = {c.T:.5g} K, p = {c.p:.5g} Pa on a flowing leg",
+                f"{name} forms at T = {c.T:.5g} K, p = {c.p:.5g} Pa on a flowing leg{flag}",
                 _solid_caution(
                     sub,
                     f"{name.capitalize()} can plug lines, valves and relief devices and release "

@@ -22,6 +22,7 @@ from typing import Any
 from .errors import RouteError
 
 __all__ = [
+    "TOLERANCE",
     "PHASES",
     "MIXTURES",
     "BOUNDARY_KINDS",
@@ -41,9 +42,13 @@ __all__ = [
     "crossing_kind",
     "describe_change",
     "boundary_of",
+    "boundary_kind",
     "phase_text",
     "state_key",
 ]
+
+#: Guaranteed relative agreement between a crossing and its boundary (in pressure).
+TOLERANCE = 1e-9
 
 #: The four regions a single-phase state can be in.
 PHASES = ("solid", "liquid", "vapor", "supercritical")
@@ -225,7 +230,9 @@ class Crossing:
     branches at very low pressure, where one floating-point step in ``T`` moves the pressure by
     more than that, ``T`` is the float closest to the exact crossing).
     ``latent_heat`` [J/kg] is the (positive) enthalpy of the transition, or None with the reason
-    in ``latent_heat_note``. ``method`` and ``evaluations`` say how it was found.
+    in ``latent_heat_note``. ``method`` and ``evaluations`` say how it was found. ``flag`` says
+    what to know about the curve crossed: it is flagged unreliable, or the crossing lies in the
+    gap between a published melting curve and the triple point ("" otherwise).
     """
 
     step: int
@@ -245,6 +252,7 @@ class Crossing:
     at_corner: bool = False
     detail: str = ""
     hazards: tuple[Hazard, ...] = ()
+    flag: str = ""
 
     @property
     def from_text(self) -> str:
@@ -361,6 +369,15 @@ _BOUNDARY_OF = {
 def boundary_of(kind: str) -> str:
     """The boundary a crossing of this kind lies on ("vapor pressure" for a condensation)."""
     return _BOUNDARY_OF.get(kind, "critical point region")
+
+
+def boundary_kind(kind: str) -> str:
+    """The kind of boundary (:data:`BOUNDARY_KINDS`) a crossing of this kind lies on, or ""."""
+    return {
+        "melting": "melting",
+        "vapor pressure": "vaporization",
+        "sublimation": "sublimation",
+    }.get(_BOUNDARY_OF.get(kind, ""), "")
 
 
 _CHANGES = {
