@@ -198,7 +198,7 @@ def _walk(
     found = [
         (c, tr.phases[k], tr.phases[k + 1])
         for k, c in enumerate(tr.candidates)
-        if tr.phases[k][0] != tr.phases[k + 1][0]
+        if tr.phases[k] != tr.phases[k + 1]
     ]
     last = tr.phases[-1]
     if leg.state is not None and state_key(leg.state) != last:
@@ -413,7 +413,7 @@ def _inside(cands: list[_Candidate], x0: float, x1: float) -> list[_Candidate]:
 
 def _isotherm_candidates(sub: Substance, T: float, p0: float, p1: float) -> list[_Candidate]:
     out = []
-    for b in sub.boundaries:
+    for b in (*sub.boundaries, *sub.solid_boundaries):
         if b.T_min <= T <= b.T_max:
             p = b.p_of_T(T)
             out.append(_Candidate(p, T, p, b.label, "direct", 1))
@@ -426,7 +426,7 @@ def _isotherm_candidates(sub: Substance, T: float, p0: float, p1: float) -> list
 def _isobar_candidates(sub: Substance, p: float, T0: float, T1: float) -> list[_Candidate]:
     lo, hi = min(T0, T1), max(T0, T1)
     out = []
-    for b in sub.boundaries:
+    for b in (*sub.boundaries, *sub.solid_boundaries):
         if b.T_max < lo or b.T_min > hi:
             continue
         for r in b.temperatures_at(p):

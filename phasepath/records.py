@@ -66,6 +66,7 @@ CROSSING_KINDS = (
     "deposition",
     "supercritical-entry",
     "supercritical-exit",
+    "solid-transition",
 )
 
 
@@ -329,7 +330,11 @@ def crossing_kind(from_phase: str, to_phase: str) -> str:
     'deposition'
     >>> crossing_kind("liquid+vapor", "supercritical")
     'supercritical-entry'
+    >>> crossing_kind("solid", "solid")  # one form of the solid to another (water's ices)
+    'solid-transition'
     """
+    if from_phase == to_phase == "solid":
+        return "solid-transition"
     if (from_phase, to_phase) in _KIND:
         return _KIND[(from_phase, to_phase)]
     b, a = set(from_phase.split("+")), set(to_phase.split("+"))
@@ -363,6 +368,7 @@ _BOUNDARY_OF = {
     "condensation": "vapor pressure",
     "sublimation": "sublimation",
     "deposition": "sublimation",
+    "solid-transition": "solid-solid",
 }
 
 

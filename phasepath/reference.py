@@ -39,7 +39,7 @@ from collections.abc import Callable
 from dataclasses import dataclass
 
 from .boundaries import Boundary
-from .correlations import co2, published_curves, sublimation_eos
+from .correlations import co2, published_curves, sublimation_eos, water_ice_phases
 from .correlations import water_iapws as w
 from .eos import EOS, fluid_info
 from .errors import PhasePathError
@@ -188,6 +188,7 @@ def build(name: str) -> Substance:
         solids=solids() if solids is not None else NoSolidModel(name),
         latent=EnthalpyDifference(),
         safety_group=_safety_group(name),
+        solid_boundaries=tuple(_ice_lines()) if name in IAPWS_ICES else (),
     )
 
 
@@ -254,6 +255,23 @@ def _water_melting() -> list[Boundary]:
     ]
 
 
+def _ice_lines() -> list[Boundary]:
+    """Water's solid-solid boundaries (Dunaeva et al. 2010 through the triple points)."""
+    return [
+        Boundary(
+            "solid-solid",
+            f"ice {bd.low}-ice {bd.high}",
+            bd.T_min,
+            bd.T_max,
+            bd.source,
+            bd.pressure,
+            bd.temperature,
+            solid_form=bd.high,
+        )
+        for bd in water_ice_phases.BOUNDARIES
+    ]
+
+
 def _melting_line(
     name: str,
     eos: EOS,
@@ -300,14 +318,14 @@ def _melting_line(
         )
         notes.append(f"The melting line of {name} is flagged unreliable: {reason}.")
 
+    p_of_T: Callable[[float], float] = f
+    T_of_p = inverse
     if shift:
 
         def p_of_T(T: float) -> float:
             return f(T) + shift
 
         T_of_p = None if inverse is None else (lambda p: inverse(p - shift))
-    else:
-        p_of_T, T_of_p = f, inverse
     return [
         Boundary(
             "melting",

@@ -61,6 +61,9 @@ class Substance:
         Melting branches (water: ice Ih, III, V, VI, VII).
     sublimation : Boundary or None
         The sublimation curve, or None where no published curve exists.
+    solid_boundaries : tuple of Boundary
+        Boundaries between two forms of the solid (water's ices: Dunaeva et al. 2010), kind
+        "solid-solid"; crossed by isobars and isotherms as solid-transition crossings.
     fluid : object
         The fluid model: the reference equation of state (:class:`phasepath.eos.EOS`), or a
         model that says why there is none (:class:`phasepath.models.NoFluidModel`).
@@ -95,6 +98,7 @@ class Substance:
         T_min: float | None = None,
         source_data: Any = None,
         safety_group: str | None = None,
+        solid_boundaries: tuple[Boundary, ...] = (),
     ) -> None:
         self.name = name
         self.triple = (float(triple[0]), float(triple[1]))
@@ -110,6 +114,7 @@ class Substance:
         self.latent = latent
         self.source_data = source_data
         self.safety_group = safety_group
+        self.solid_boundaries = tuple(solid_boundaries)
         if T_min is None:
             T_min = sublimation.T_min if sublimation is not None else self.triple[0]
         self.T_min = float(T_min)
@@ -169,7 +174,7 @@ class Substance:
         branches do not quite meet; the analyser tests each of them.
         """
         ts = {self.triple[0], self.critical[0]}
-        for b in self.boundaries:
+        for b in (*self.boundaries, *self.solid_boundaries):
             ts.update((b.T_min, b.T_max))
         return tuple(sorted(ts))
 
@@ -367,9 +372,16 @@ class Substance:
             for b in self.melting:
                 if b.solid_side == "below" and b.T_min <= T <= b.T_max:
                     if p <= b.p_of_T(T):
-                        return "solid", b.solid_form
+                        return "solid", self._form(T, p, b.solid_form)
                     solid = self._solid_above(T, p)
-                    return ("solid", solid) if solid is not False else ("liquid", None)
+                    return (
+                        ("solid", self._form(T, p, solid))
+                        if solid is not False
+                        else (
+                            "liquid",
+                            None,
+                        )
+                    )
             return "solid", self.solids.form_at(T, p)
         vapor = self.vapor
         if vapor is not None and not T > self.critical[0] and p <= vapor.p_of_T(T):
@@ -377,10 +389,18 @@ class Substance:
         if T < self._liquid_from:  # the gap below a melting curve's start: no liquid here
             start = self._melt_start
             return "solid", self.solids.form_at(T, p) if start is None else start[2]
-        solid = self._solid_above(T, p)
-        if solid is not False:
-            return "solid", solid if solid is not None else self.solids.form_at(T, p)
+        above = self._solid_above(T, p)
+        if above is not None:
+            return "solid", self._form(T, p, above.solid_form)
         return self.fluid_phase(T, p), None
+
+    def _form(self, T: float, p: float, branch_form: str | None) -> str | None:
+        """The form of the solid at (T, p): the solid model's one naming function where it names
+        forms (water's ices), else the melting branch's."""
+        if branch_form is None:
+            return self.solids.form_at(T, p)
+        named = self.solids.form_at(T, p)
+        return named if named is not None else branch_form
 
     def fluid_phase(self, T: float, p: float) -> str:
         """The fluid region of (T, p), the solid left aside: "liquid", "vapor" or
@@ -393,9 +413,9 @@ class Substance:
             return "liquid" if p > self.vapor.p_of_T(T) else "vapor"
         return "liquid" if p > self.triple[1] else "vapor"
 
-    def _solid_above(self, T: float, p: float) -> str | None | bool:
-        """The form of the solid above a melting branch at (T, p) (None: unnamed), else False."""
+    def _solid_above(self, T: float, p: float) -> Boundary | None:
+        """The melting branch (T, p) lies above on its solid side, else None."""
         for b in self.melting:
             if b.solid_side == "above" and b.T_min <= T <= b.T_max and p > b.p_of_T(T):
-                return b.solid_form
-        return False
+                return b
+        return None

@@ -54,7 +54,7 @@ SUBSTANCES = ("Water", "CarbonDioxide", "Nitrogen", "Argon", "Methane", "n-Propa
 _INVERSE = {"melting": "freezing", "freezing": "melting", "vaporization": "condensation",
             "condensation": "vaporization", "sublimation": "deposition",
             "deposition": "sublimation", "supercritical-entry": "supercritical-exit",
-            "supercritical-exit": "supercritical-entry"}
+            "supercritical-exit": "supercritical-entry", "solid-transition": "solid-transition"}
 _SCAN = 120  # points per leg in the independent scan
 _NUDGE = 1e-7  # relative step beside a crossing where its two phases are read
 
@@ -136,7 +136,7 @@ def _fraction(kind: str, a: tuple[float, float], b: tuple[float, float], T: floa
 def _check_on_boundary(sub: pp.Substance, route: pp.Route, c: pp.Crossing) -> None:
     T_t, p_t = sub.triple
     T_c, p_c = sub.critical
-    branches = {b.label: b for b in sub.boundaries}
+    branches = {b.label: b for b in (*sub.boundaries, *sub.solid_boundaries)}
     if c.at_corner or c.boundary == "corner":
         assert any(c.T == T and c.p == p for T, p in route.corners()), c
     elif c.boundary in branches:
