@@ -373,15 +373,10 @@ class Substance:
                 if b.solid_side == "below" and b.T_min <= T <= b.T_max:
                     if p <= b.p_of_T(T):
                         return "solid", self._form(T, p, b.solid_form)
-                    solid = self._solid_above(T, p)
-                    return (
-                        ("solid", self._form(T, p, solid))
-                        if solid is not False
-                        else (
-                            "liquid",
-                            None,
-                        )
-                    )
+                    above = self._solid_above(T, p)
+                    if above is None:
+                        return "liquid", None
+                    return "solid", self._form(T, p, above.solid_form)
             return "solid", self.solids.form_at(T, p)
         vapor = self.vapor
         if vapor is not None and not T > self.critical[0] and p <= vapor.p_of_T(T):
