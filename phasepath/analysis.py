@@ -37,15 +37,15 @@ from dataclasses import dataclass, replace
 from functools import lru_cache
 from typing import TYPE_CHECKING
 
-from . import states
+from . import curved, states
 from .correlations.atmosphere import ambient_pressure
 from .energetics import latent_heat, leg_heat_work
 from .errors import PhasePathError, RouteError
-from .hazards import cautions, crossing_hazards, leg_hazards
-from .paths import trace
+from .hazards import NEAR_CRITICAL, cautions, crossing_hazards, leg_hazards
 from .records import (
     BASES,
     CURVED_KINDS,
+    LEG_KINDS,
     TOLERANCE,
     Crossing,
     LegSummary,
@@ -131,7 +131,9 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
                 )
             )
         found += [
-            _crossing(sub, step, leg.kind, c, before, after, "")
+            _crossing(
+                sub, step, leg.kind, c, before, after, "corner" if c.method == "corner" else ""
+            )
             for c, before, after in walk.crossings
         ]
         end_key = walk.last
@@ -230,47 +232,102 @@ def _walk(
 def _walk_curved(
     sub: Substance, leg: Leg, T0: float, p0: float, prev_end: StatePoint | None
 ) -> _Walk:
+    """A curved leg: its crossings by root-finding on the boundary functions of the held
+    property (:mod:`phasepath.curved`), the phase between them from the state at the middle."""
     assert leg.state is not None
     start = (
         prev_end
         if prev_end is not None
         else _single(sub, StatePoint(T0, p0, "?"), sub.classify(T0, p0))
     )
-    if leg.kind == "isochore":
-        v = 1.0 / (start.rho or leg.state.rho or 1.0)
+    prop = LEG_KINDS[leg.kind].held
+    value = states.held_value(start, prop)
+    if value is None:
+        raise RouteError(f"the {leg.kind} leg starts from a state with no model: {start.model}")
+    sealed = prop == "v"
+    x0, x1 = (start.T, leg.T) if sealed else (start.p, leg.p)
+    found = curved.candidates(sub, prop, value, x0, x1)
+    cands = _inside([_Candidate(*c) for c in found], x0, x1)
+    xs = [x0] + [c.x for c in cands] + [x1]
+    mids = [
+        curved.state_at(sub, prop, value, 0.5 * (a + b) if sealed else _pmid(a, b))
+        for a, b in zip(xs[:-1], xs[1:], strict=True)
+    ]
+    keys = [m.key for m in mids]
+    crossings = []
+    points: list[StatePoint] = [start]
+    if start.key != keys[0]:
+        # the leg starts on a boundary and runs into the next region from it (saturated vapor
+        # into the two-phase region): the state does not jump, the change begins on this leg
+        corner = _Candidate(x0, start.T, start.p, "corner", "corner", 0)
+        crossings.append((corner, start.key, keys[0]))
+    for k, c in enumerate(cands):
+        if keys[k] == keys[k + 1]:
+            continue
+        if math.isnan(c.T):  # a fixed point of the coordinate: the state there
+            at = curved.state_at(sub, prop, value, c.x)
+            c = replace(c, T=at.T, p=at.p, boundary=_fixed_label(sub, c, at))
+        label = c.boundary
+        if "+" in keys[k][0] and "+" in keys[k + 1][0]:
+            label = "triple point"  # one two-phase mixture to another
+        crossings.append((replace(c, boundary=label), keys[k], keys[k + 1]))
+        points.append(StatePoint(c.T, c.p, *keys[k + 1]))
+    points.append(leg.state)
+    path = _key_states(sub, prop, value, points, sealed)
+    return _Walk(start.key, keys[-1], tuple(crossings), tuple(path))
 
-        def state_at(x: float) -> StatePoint:
-            return states.flash_Tv(sub, x, v)
 
-        x0, x1, geometric = T0, leg.T, False
-    else:
-        prop = "h" if leg.kind == "isenthalp" else "s"
-        value = start.h if prop == "h" else start.s
-        assert value is not None
-
-        def state_at(x: float) -> StatePoint:
-            return states.flash_p(sub, x, prop, value)
-
-        x0, x1, geometric = p0, leg.p, True
-    path, events = trace(state_at, x0, x1, geometric, first=start)
-    found = []
+def _fixed_label(sub: Substance, c: _Candidate, at: StatePoint) -> str:
+    """The boundary a fixed point of a curved leg lies on."""
+    T_t, p_t = sub.triple
     T_c, p_c = sub.critical
-    for before, after, count in events:
-        on = after if "+" in after.phase else before
-        x = on.T if leg.kind == "isochore" else on.p
-        kind = crossing_kind(before.phase, after.phase)
-        label = boundary_of(kind)
-        if "+" in before.phase and "+" in after.phase:
-            label = "triple point"
-        elif kind.startswith("supercritical"):
-            label = (
-                "critical isobar"
-                if on.T > T_c and abs(on.p / p_c - 1) < 1e-6
-                else ("critical isotherm")
-            )
-        cand = _Candidate(x, on.T, on.p, label, "bisection", count)
-        found.append((cand, state_key(before), state_key(after)))
-    return _Walk(path[0].key, path[-1].key, tuple(found), tuple(path))
+    if math.isclose(at.p, p_t, rel_tol=_END_TOL) or math.isclose(at.T, T_t, rel_tol=_END_TOL):
+        return "triple point"
+    if math.isclose(at.p, p_c, rel_tol=_END_TOL) and at.T > T_c:
+        return "critical isobar"
+    if math.isclose(at.T, T_c, rel_tol=_END_TOL):
+        return "critical isotherm"
+    return "branch junction"
+
+
+def _key_states(
+    sub: Substance, prop: str, value: float, points: list[StatePoint], sealed: bool
+) -> list[StatePoint]:
+    """The states a curved leg's flags are read from, in leg order: its ends and crossings,
+    where its temperature (pressure on a sealed vessel) turns inside a single-phase stretch,
+    and where it crosses the edges of the near-critical box (between two such states T and p
+    are monotone, so these are all the states that decide a flag)."""
+    T_c, p_c = sub.critical
+    dT, dp = NEAR_CRITICAL
+    box = (T_c * (1 - dT), T_c * (1 + dT), p_c * (1 - dp), p_c * (1 + dp))
+    edges = (box[0], box[1]) if sealed else (box[2], box[3])
+    out = [points[0]]
+    for a, b in zip(points[:-1], points[1:], strict=True):
+        xa, xb = (a.T, b.T) if sealed else (a.p, b.p)
+        inner = []
+        turn = curved.turning_point(sub, prop, value, a, b, xa, xb)
+        if turn is not None:
+            inner.append(turn)
+        for seg_a, seg_b in zip([a, *inner], [*inner, b], strict=True):
+            if not _meets(seg_a, seg_b, box):
+                continue
+            ya, yb = (seg_a.T, seg_b.T) if sealed else (seg_a.p, seg_b.p)
+            for x in edges:
+                if min(ya, yb) < x < max(ya, yb):
+                    inner.append(curved.state_at(sub, prop, value, x))
+        inner.sort(key=lambda st: abs((st.T if sealed else st.p) - xa))
+        out += [*inner, b]
+    return out
+
+
+def _meets(a: StatePoint, b: StatePoint, box: tuple[float, float, float, float]) -> bool:
+    """True where the rectangle spanned by two states overlaps the box (T_lo, T_hi, p_lo, p_hi)."""
+    return not (
+        max(a.T, b.T) < box[0]
+        or min(a.T, b.T) > box[1]
+        or max(a.p, b.p) < box[2]
+        or min(a.p, b.p) > box[3]
+    )
 
 
 def _single(sub: Substance, where: StatePoint, key: tuple[str, str | None]) -> StatePoint:

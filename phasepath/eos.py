@@ -234,6 +234,29 @@ class EOS:
         )
         return T, h, s, rho, q
 
+    def slope_along(self, held: str, T: float, p: float, phase: str) -> float:
+        """The slope of a curved leg at a single-phase state: dT/dp [K/Pa] at constant h or s,
+        dp/dT [Pa/K] at constant density ("v")."""
+        of, wrt, const = {
+            "h": (CP.iT, CP.iP, CP.iHmass),
+            "s": (CP.iT, CP.iP, CP.iSmass),
+            "v": (CP.iP, CP.iT, CP.iDmass),
+        }[held]
+        with self._lock:
+            a = self._as
+            try:
+                self.calls += 1
+                a.specify_phase(_PHASE_FLAG[phase])
+                a.update(CP.PT_INPUTS, p, T)
+                v = a.first_partial_deriv(of, wrt, const)
+            except Exception as exc:
+                raise PropertyError(
+                    f"{self.name}: slope at T = {T} K, p = {p} Pa failed: {exc}"
+                ) from None
+            finally:
+                a.unspecify_phase()
+        return self._finite(v, f"slope at T = {T} K, p = {p} Pa")
+
     def saturated(self, T: float) -> tuple[tuple[float, float, float], tuple[float, float, float]]:
         """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]."""
         self._check_sat_T(T)

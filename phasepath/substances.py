@@ -226,6 +226,23 @@ class Substance:
             )
         return text
 
+    @property
+    def melting_start(self) -> tuple[float, float, str | None] | None:
+        """(T [K], p [Pa], form) where the melting curve at the triple point starts, or None."""
+        return self._melt_start
+
+    @property
+    def liquid_from(self) -> float:
+        """The temperature [K] from which liquid exists above the vapor-pressure curve (the
+        triple point, or higher where a melting curve starts below or after it)."""
+        return self._liquid_from
+
+    def in_solid_strip(self, T: float) -> bool:
+        """True for a temperature from the triple point up to where a melting curve that starts
+        below the vapor-pressure curve (or above the triple-point temperature) rises through it:
+        there no liquid exists, and the solid meets the vapor on the vapor-pressure curve."""
+        return self.triple[0] <= T < self._liquid_from
+
     def in_melting_gap(self, T: float, p: float) -> bool:
         """True where (T, p) lies on the explicit part of the solid boundary between a published
         melting curve and the triple point (see :meth:`melting_gap`), within 1e-9."""
@@ -372,11 +389,11 @@ class Substance:
             for b in self.melting:
                 if b.solid_side == "below" and b.T_min <= T <= b.T_max:
                     if p <= b.p_of_T(T):
-                        return "solid", self._form(T, p, b.solid_form)
+                        return "solid", self.form_of_solid(T, p, b.solid_form)
                     above = self._solid_above(T, p)
                     if above is None:
                         return "liquid", None
-                    return "solid", self._form(T, p, above.solid_form)
+                    return "solid", self.form_of_solid(T, p, above.solid_form)
             return "solid", self.solids.form_at(T, p)
         vapor = self.vapor
         if vapor is not None and not T > self.critical[0] and p <= vapor.p_of_T(T):
@@ -386,10 +403,10 @@ class Substance:
             return "solid", self.solids.form_at(T, p) if start is None else start[2]
         above = self._solid_above(T, p)
         if above is not None:
-            return "solid", self._form(T, p, above.solid_form)
+            return "solid", self.form_of_solid(T, p, above.solid_form)
         return self.fluid_phase(T, p), None
 
-    def _form(self, T: float, p: float, branch_form: str | None) -> str | None:
+    def form_of_solid(self, T: float, p: float, branch_form: str | None) -> str | None:
         """The form of the solid at (T, p): the solid model's one naming function where it names
         forms (water's ices), else the melting branch's."""
         if branch_form is None:
