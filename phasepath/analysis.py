@@ -249,11 +249,10 @@ def _walk_curved(
     found = curved.candidates(sub, prop, value, x0, x1)
     cands = _inside([_Candidate(*c) for c in found], x0, x1)
     xs = [x0] + [c.x for c in cands] + [x1]
-    mids = [
-        curved.state_at(sub, prop, value, 0.5 * (a + b) if sealed else _pmid(a, b))
+    keys = [
+        curved.key_at(sub, prop, value, 0.5 * (a + b) if sealed else _pmid(a, b))
         for a, b in zip(xs[:-1], xs[1:], strict=True)
     ]
-    keys = [m.key for m in mids]
     crossings = []
     points: list[StatePoint] = [start]
     if start.key != keys[0]:

@@ -20,10 +20,11 @@ piece is monotone. Nothing is found by sampling the leg.
 
 Guarantee: every crossing of a constant-h, -s or -v leg with a boundary is found, and its
 pressure (its temperature on a constant-volume leg) is that of the exact crossing of the
-equations to 1e-9 relative (the root is taken where the boundary function is within 1e-12 of
-its span over the piece in t, or at machine precision). The points where boundaries end or meet
-(the triple and critical points, the ends of water's ice branches, the ends of a model's range)
-are candidates too. The phase between neighbouring candidates is that of the state at their
+equations to 1e-9 relative (the root is taken where the boundary function equals the held value
+within 8 units in its last place, or where the bracket in t has shrunk to four of them). The
+points where boundaries end or meet (the triple and critical points, the ends of water's ice
+branches, the ends of a model's range) are candidates too, where the leg's state there is on a
+boundary. The phase between neighbouring candidates is that of the state at their
 midpoint (:mod:`phasepath.states`), so a crossing is never reported without a change of phase.
 The samples of a boundary function serve the guesses and the splitting only; a sample spacing
 can hide two extrema closer than one spacing (96 nodes per branch), which no boundary of the
@@ -49,11 +50,20 @@ from .rootfind import find_root
 if TYPE_CHECKING:  # pragma: no cover
     from .substances import Substance
 
-__all__ = ["Sheet", "Piece", "sheets", "candidates", "state_at", "turning_point", "NODES"]
+__all__ = [
+    "Sheet",
+    "Piece",
+    "sheets",
+    "candidates",
+    "state_at",
+    "key_at",
+    "turning_point",
+    "NODES",
+]
 
 #: Nodes per boundary function (before the pieces are split at its extrema).
 NODES = 96
-_ROOT_FTOL = 1e-14  # a root is taken where |g - c| is this fraction of the piece's span of g
+_ROOT_ULPS = 8.0  # a root is taken where g equals c within this many units in the last place
 _INDEX = {"h": 0, "s": 1, "v": 2}
 _EPS = 2.220446049250313e-16
 
@@ -100,9 +110,10 @@ class Piece:
 
 # -- the boundary functions of a substance -------------------------------------------------------
 @lru_cache(maxsize=256)
-def sheets(sub: Substance, prop: str) -> tuple[tuple[Sheet, ...], tuple[float, ...]]:
+def sheets(sub: Substance, prop: str) -> tuple[tuple[Sheet, ...], tuple[tuple[float, bool], ...]]:
     """The boundary functions of ``prop`` ("h", "s" or "v") of a substance, and the fixed
-    points of the leg's coordinate where boundaries end or meet (cached per substance)."""
+    points of the leg's coordinate where boundaries end or meet (cached per substance), each
+    marked True where it ends a model's range and is always a candidate."""
     return _x_p_sheets(sub, prop) if prop in ("h", "s") else _x_T_sheets(sub)
 
 
@@ -117,13 +128,16 @@ def _model(sub: Substance, T: float, p: float, phase: str, form: str | None, pro
     return _held(phase_state(sub, T, p, phase, form), prop)
 
 
-def _x_p_sheets(sub: Substance, prop: str) -> tuple[tuple[Sheet, ...], tuple[float, ...]]:
+def _x_p_sheets(
+    sub: Substance, prop: str
+) -> tuple[tuple[Sheet, ...], tuple[tuple[float, bool], ...]]:
     """Boundary functions along the pressure (constant-h and constant-s legs)."""
     T_t, p_t = sub.triple
     T_c, p_c = sub.critical
     i = _INDEX[prop]
     out: list[Sheet] = []
     fixed = {p_t, p_c}
+    always: set[float] = set()  # ends of a model's range: the stretch beyond is always cut off
     vap = sub.vapor
     if vap is not None:
 
@@ -148,25 +162,27 @@ def _x_p_sheets(sub: Substance, prop: str) -> tuple[tuple[Sheet, ...], tuple[flo
             return _model(sub, T_c, p, "supercritical", None, prop)
 
         out.append(Sheet("critical isotherm", p_c, p_top, g_ci, _same, lambda p: (T_c, p)))
-        fixed.add(p_top)
+        always.add(p_top)
     for b in sub.melting:
-        lo, hi = b.T_min, _top_T(b, sub.p_max)
-        for x_end in (b.p_of_T(lo), b.p_of_T(hi)):
-            fixed.add(x_end)
+        lo, hi = _melting_span(sub, b)
+        fixed.add(b.p_of_T(lo))
+        always.add(b.p_of_T(hi))
         out += _curve_sheets(sub, prop, b, lo, hi, x_is_p=True)
     out += _gap_sheets(sub, prop, fixed)
     if sub.sublimation is not None:
         b = sub.sublimation
+        always.add(b.p_of_T(b.T_min))
         out += _curve_sheets(sub, prop, b, b.T_min, b.T_max, x_is_p=True)
-    return tuple(out), tuple(sorted(fixed))
+    return tuple(out), _marked(fixed, always)
 
 
-def _x_T_sheets(sub: Substance) -> tuple[tuple[Sheet, ...], tuple[float, ...]]:
+def _x_T_sheets(sub: Substance) -> tuple[tuple[Sheet, ...], tuple[tuple[float, bool], ...]]:
     """Boundary functions along the temperature (constant-volume legs)."""
     T_t, _ = sub.triple
     T_c, p_c = sub.critical
     out: list[Sheet] = []
     fixed = set(sub.junction_temperatures)
+    always: set[float] = {sub.T_max}
     vap = sub.vapor
     if vap is not None:
 
@@ -188,13 +204,20 @@ def _x_T_sheets(sub: Substance) -> tuple[tuple[Sheet, ...], tuple[float, ...]]:
 
     out.append(Sheet("critical isobar", T_c, sub.T_max, g_cb, _same, lambda T: (T, p_c)))
     for b in sub.melting:
-        lo, hi = b.T_min, _top_T(b, sub.p_max)
-        fixed.update((lo, hi))
+        lo, hi = _melting_span(sub, b)
+        fixed.add(lo)
+        always.add(hi)
         out += _curve_sheets(sub, "v", b, lo, hi, x_is_p=False)
     if sub.sublimation is not None:
         b = sub.sublimation
+        always.add(b.T_min)
         out += _curve_sheets(sub, "v", b, b.T_min, b.T_max, x_is_p=False)
-    return tuple(out), tuple(sorted(fixed))
+    return tuple(out), _marked(fixed, always)
+
+
+def _marked(fixed: set[float], always: set[float]) -> tuple[tuple[float, bool], ...]:
+    """The fixed points in rising order, each marked True where it is always a candidate."""
+    return tuple(sorted({(x, x in always) for x in fixed | always}))
 
 
 def _same(t: float) -> float:
@@ -209,6 +232,18 @@ def _critical_isotherm_top(sub: Substance) -> float:
         if b.solid_side == "above" and b.T_min <= T_c <= b.T_max:
             top = min(top, b.p_of_T(T_c))
     return top
+
+
+def _melting_span(sub: Substance, b: object) -> tuple[float, float]:
+    """The temperatures where a melting branch divides solid from fluid within the models: from
+    where liquid exists (above a gap next to the triple point) to where it leaves p_max."""
+    from .boundaries import Boundary
+
+    assert isinstance(b, Boundary)
+    lo = b.T_min
+    if b.solid_side == "above" and b.T_min <= sub.liquid_from <= b.T_max:
+        lo = max(b.T_min, sub.liquid_from)  # the branch at the triple point, past its gap
+    return lo, _top_T(b, sub.p_max)
 
 
 def _top_T(b: object, p_max: float) -> float:
@@ -234,10 +269,7 @@ def _curve_sheets(
         return T, b.p_of_T(T)
 
     def fluid_key(T: float) -> str:
-        if sublimation:
-            return "vapor"
-        p = b.p_of_T(T)
-        return sub.fluid_phase(T, p * (1 - 1e-12) if b.solid_side == "above" else p * (1 + 1e-12))
+        return "vapor" if sublimation else states.melt_fluid(sub, T)
 
     def g_fluid(T: float) -> float:
         return _model(sub, T, b.p_of_T(T), fluid_key(T), None, prop)
@@ -400,13 +432,61 @@ def candidates(
             px_lo, px_hi = piece.x_range
             if px_hi < lo or px_lo > hi:
                 continue
+            g_a, g_b = piece.g[0], piece.g[-1]
+            if value < min(g_a, g_b) or value > max(g_a, g_b):
+                continue  # monotone: no stretch of this piece reaches the value
             r = _root(piece, value, max(lo, px_lo), min(hi, px_hi))
             if r is not None:
                 found.append(r)
-    for x in fixed:
-        if lo < x < hi:
+    for x, always in fixed:
+        if lo < x < hi and (always or _matters(sub, prop, x, value)):
             found.append((x, math.nan, math.nan, "junction", "junction", 0))
     return found
+
+
+def _matters(sub: Substance, prop: str, x: float, value: float) -> bool:
+    """Whether the phase can change at a fixed point x for a leg holding ``value``: only where
+    the state there is a mixture on a boundary (both sides of x: the values between the two
+    phases of each boundary met there), or across the critical isobar (isotherm on a sealed
+    vessel) on the supercritical side."""
+    lo, hi = _window(sub, prop, x)
+    slack = 1e-9 * max(abs(value), abs(lo) if math.isfinite(lo) else 0.0, 1e-300)
+    return lo - slack <= value <= hi + slack
+
+
+@lru_cache(maxsize=4096)
+def _window(sub: Substance, prop: str, x: float) -> tuple[float, float]:
+    """The range of held values for which the phase can change at the fixed point x (cached)."""
+    T_c, p_c = sub.critical
+    lo, hi = math.inf, -math.inf
+    for y in (x * (1 - 1e-9), x * (1 + 1e-9)):
+        try:
+            layers = states.layers_at_T(sub, y) if prop == "v" else states.layers_at_p(sub, y)
+            for layer in layers:
+                for side in (layer.below, layer.above):
+                    T, p = (y, layer.p) if prop == "v" else (layer.T, y)
+                    v = _held(_side_state(sub, T, p, side), prop)
+                    lo, hi = min(lo, v), max(hi, v)
+        except PhasePathError:
+            return -math.inf, math.inf  # a model ends here: always a candidate
+    if prop == "v" and x == T_c:
+        lo = -math.inf  # denser than critical: liquid below T_c, supercritical above
+    elif prop != "v" and x == p_c:
+        hi = math.inf  # hotter than critical: vapor below p_c, supercritical above
+        lo = min(lo, _model(sub, T_c, p_c, "supercritical", None, prop))
+    return lo, hi
+
+
+def _side_state(sub: Substance, T: float, p: float, side: tuple[str, str | None]) -> StatePoint:
+    if side[0] in ("liquid", "vapor") and sub.vapor is not None and T <= sub.critical[0]:
+        try:
+            if math.isclose(sub.vapor.p_of_T(T), p, rel_tol=1e-6):
+                (hl, sl, rl), (hv, sv, rv) = sub.fluid.saturated(T)
+                h, s_, r = (hl, sl, rl) if side[0] == "liquid" else (hv, sv, rv)
+                return StatePoint(T, p, side[0], h=h, s=s_, rho=r)
+        except PhasePathError:
+            pass
+    return phase_state(sub, T, p, *side)
 
 
 def _root(
@@ -435,7 +515,6 @@ def _root(
     lo_t, hi_t = (ta, tb) if ta < tb else (tb, ta)
     f_lo, f_hi = (fa, fb) if ta < tb else (fb, fa)
     guess, slope = _guess(piece, c, lo_t, hi_t)
-    span = max(abs(gs[-1] - gs[0]), 1e-300)
     r = find_root(
         lambda t: sheet.g(t) - c,
         lo_t,
@@ -444,7 +523,7 @@ def _root(
         f_hi=f_hi,
         guess=guess,
         slope=slope,
-        ftol=max(_ROOT_FTOL * span, 4 * _EPS * abs(c)),
+        ftol=_ROOT_ULPS * _EPS * abs(c),
         what=f"the {sheet.label} crossing",
     )
     T, p = sheet.Tp(r.root)
@@ -494,6 +573,13 @@ def state_at(sub: Substance, prop: str, value: float, x: float) -> StatePoint:
     if prop == "v":
         return states.flash_Tv(sub, x, value)
     return states.flash_p(sub, x, prop, value)
+
+
+def key_at(sub: Substance, prop: str, value: float, x: float) -> tuple[str, str | None]:
+    """(phase, form) of the leg's state at coordinate x, without solving for the state."""
+    if prop == "v":
+        return states.phase_key_T(sub, x, value)
+    return states.phase_key_p(sub, x, prop, value)
 
 
 def turning_point(

@@ -192,8 +192,11 @@ class DryIce(SolidModel):
 
 # -- latent heats -------------------------------------------------------------------------------
 def _involved(before: str, after: str) -> tuple[str, str] | None:
-    """The (lost, gained) single phases of a transition between phases or mixtures."""
+    """The (lost, gained) single phases of a transition between phases or mixtures; between two
+    mixtures at the triple point, the liquid and the solid (the latent heat of fusion)."""
     b, a = set(before.split("+")), set(after.split("+"))
+    if len(a) == 2 and len(b) == 2 and {"solid", "liquid"} <= a | b:
+        return ("liquid", "solid") if "solid" in a - b or "liquid" in b - a else ("solid", "liquid")
     lost, gained = b - a, a - b
     if len(lost) == 1 and len(gained) == 1:
         return next(iter(lost)), next(iter(gained))

@@ -332,12 +332,21 @@ def crossing_kind(from_phase: str, to_phase: str) -> str:
     'supercritical-entry'
     >>> crossing_kind("solid", "solid")  # one form of the solid to another (water's ices)
     'solid-transition'
+    >>> crossing_kind("liquid+vapor", "solid+liquid")  # sealed water at its triple point
+    'freezing'
     """
     if from_phase == to_phase == "solid":
         return "solid-transition"
     if (from_phase, to_phase) in _KIND:
         return _KIND[(from_phase, to_phase)]
     b, a = set(from_phase.split("+")), set(to_phase.split("+"))
+    if len(a) == 2 and len(b) == 2 and "liquid" in a | b and "solid" in a | b:
+        # one mixture to another at the triple point: named for what the liquid does there
+        if "liquid" in b and "liquid" not in a:
+            return "deposition" if "solid" not in b else "freezing"
+        if "liquid" in a and "liquid" not in b:
+            return "melting"
+        return "freezing" if "solid" in a else "melting"
     if "solid" in a and "vapor" in a and "solid" not in b:
         return "deposition"  # solid now forms beside the vapor (dry-ice snow)
     if "solid" in b and "vapor" in b and "solid" not in a:
@@ -403,6 +412,15 @@ _CHANGES = {
     ("solid+liquid", "liquid"): "the last solid has melted",
     ("solid+liquid", "solid"): "the last liquid has frozen",
     ("solid", "solid+liquid"): "melting starts",
+    ("liquid+vapor", "solid+liquid"): (
+        "triple point: the liquid starts to freeze and the vapor is gone (latent heat shown: "
+        "fusion)"
+    ),
+    ("solid+liquid", "liquid+vapor"): "triple point: the last solid melts and vapor forms",
+    ("solid+liquid", "solid+vapor"): (
+        "triple point: the last liquid turns to solid and vapor (latent heat shown: fusion)"
+    ),
+    ("solid+vapor", "solid+liquid"): "triple point: the solid starts to melt; the vapor is gone",
 }
 
 

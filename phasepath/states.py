@@ -55,6 +55,9 @@ __all__ = [
     "Layer",
     "layers_at_p",
     "layers_at_T",
+    "melt_fluid",
+    "phase_key_p",
+    "phase_key_T",
 ]
 
 _END_SLACK = 1e-9  # a root on a boundary's end may miss the bracket by rounding of the calls
@@ -162,7 +165,7 @@ def layers_at_p(sub: Substance, p: float) -> list[Layer]:
     out = []
     if melt is not None:
         T_m = melt[0]
-        fluid = sub.fluid_phase(T_m * (1 + 1e-12), p)
+        fluid = melt_fluid(sub, T_m)
         label = _melting_label(sub, T_m, p)
         out.append(
             Layer(T_m, p, ("solid", sub.form_of_solid(T_m, p, melt[1])), (fluid, None), label)
@@ -204,10 +207,16 @@ def layers_at_T(sub: Substance, T: float) -> list[Layer]:
     for b in sub.melting:
         if b.solid_side == "above" and b.T_min <= T <= b.T_max:
             p_m = b.p_of_T(T)
-            fluid = sub.fluid_phase(T, p_m * (1 - 1e-12))
+            fluid = melt_fluid(sub, T)
             above = ("solid", sub.form_of_solid(T, p_m, b.solid_form))
             out.append(Layer(T, p_m, (fluid, None), above, b.label))
     return sorted(out, key=lambda layer: layer.p)
+
+
+def melt_fluid(sub: Substance, T: float) -> str:
+    """The fluid that meets the solid on a melting curve at T [K]: liquid, or supercritical
+    above the critical temperature."""
+    return "supercritical" if T > sub.critical[0] else "liquid"
 
 
 def _melting_label(sub: Substance, T: float, p: float) -> str:
@@ -220,6 +229,34 @@ def _melting_label(sub: Substance, T: float, p: float) -> str:
 # -- the flashes --------------------------------------------------------------------------------
 def flash_p(sub: Substance, p: float, prop: str, value: float) -> StatePoint:
     """The state at pressure p [Pa] with h [J/kg] or s [J/(kg K)] equal to ``value``."""
+    out = _walk_p(sub, p, prop, value, False)
+    assert isinstance(out, StatePoint)
+    return out
+
+
+def phase_key_p(sub: Substance, p: float, prop: str, value: float) -> tuple[str, str | None]:
+    """(phase, form) of the state :func:`flash_p` would give, without solving for it."""
+    out = _walk_p(sub, p, prop, value, True)
+    return out.key if isinstance(out, StatePoint) else out
+
+
+def flash_Tv(sub: Substance, T: float, v: float) -> StatePoint:
+    """The state at temperature T [K] with specific volume v [m3/kg] (a sealed vessel)."""
+    out = _walk_T(sub, T, v, False)
+    assert isinstance(out, StatePoint)
+    return out
+
+
+def phase_key_T(sub: Substance, T: float, v: float) -> tuple[str, str | None]:
+    """(phase, form) of the state :func:`flash_Tv` would give, without solving for it."""
+    out = _walk_T(sub, T, v, True)
+    return out.key if isinstance(out, StatePoint) else out
+
+
+_Key = tuple[str, "str | None"]
+
+
+def _walk_p(sub: Substance, p: float, prop: str, value: float, key_only: bool) -> StatePoint | _Key:
     what = f"{sub.name} at p = {p:.6g} Pa with {prop} = {value:.6g}"
     layers = layers_at_p(sub, p)
     T_lo = sub.T_min
@@ -227,7 +264,7 @@ def flash_p(sub: Substance, p: float, prop: str, value: float) -> StatePoint:
         T_lo = max(sub.T_min, sub.triple[0])
     f_lo: float | None = None
     for layer in layers:
-        up = phase_state(sub, layer.T, p, *layer.above)
+        up = _on(sub, layer, "above")
         a = held_value(up, prop)
         assert a is not None
         if value > a:  # beyond this boundary
@@ -235,35 +272,40 @@ def flash_p(sub: Substance, p: float, prop: str, value: float) -> StatePoint:
             continue
         if value == a:
             return up
-        down = phase_state(sub, layer.T, p, *layer.below)
+        down = _on(sub, layer, "below")
         b = held_value(down, prop)
         assert b is not None
         if value > b:
             return _lever(layer, down, up, b, a, value)
         if value == b:
             return down
+        if key_only:
+            return _region_p(sub, p, prop, value, T_lo, layer.T, layer.below)
         return _solve_T(sub, p, prop, value, T_lo, layer.T, layer.below, what, f_lo, b - value)
     top = (_fluid_key(sub, sub.T_max, p), None)
     below = layers[-1].above if layers else top
+    if key_only:
+        return _region_p(sub, p, prop, value, T_lo, sub.T_max, below)
     return _solve_T(sub, p, prop, value, T_lo, sub.T_max, below, what, f_lo, None)
 
 
-def flash_Tv(sub: Substance, T: float, v: float) -> StatePoint:
-    """The state at temperature T [K] with specific volume v [m3/kg] (a sealed vessel)."""
+def _walk_T(sub: Substance, T: float, v: float, key_only: bool) -> StatePoint | _Key:
     rho = 1.0 / v
     what = f"{sub.name} at T = {T:.6g} K and density {rho:.6g} kg/m3"
     layers = layers_at_T(sub, T)
     p_lo = 0.0
     f_lo: float | None = None
     for layer in layers:  # v falls with p, and jumps down across every boundary
-        down = phase_state(sub, T, layer.p, *layer.below)
+        down = _on(sub, layer, "below")
         b = held_value(down, "v")
         assert b is not None
         if v > b:
+            if key_only:
+                return _region_T(sub, T, v, p_lo, layer.p, layer.below)
             return _solve_p(sub, T, v, p_lo, layer.p, layer.below, what, f_lo, b - v)
         if v == b:
             return down
-        up = phase_state(sub, T, layer.p, *layer.above)
+        up = _on(sub, layer, "above")
         a = held_value(up, "v")
         assert a is not None
         if v > a:
@@ -272,7 +314,53 @@ def flash_Tv(sub: Substance, T: float, v: float) -> StatePoint:
             return up
         p_lo, f_lo = layer.p, a - v
     above = layers[-1].above if layers else (_fluid_key(sub, T, sub.p_max), None)
+    if key_only:
+        return _region_T(sub, T, v, p_lo, sub.p_max, above)
     return _solve_p(sub, T, v, p_lo, sub.p_max, above, what, f_lo, None)
+
+
+def _region_p(
+    sub: Substance, p: float, prop: str, value: float, lo: float, hi: float, key: _Key
+) -> _Key:
+    """The (phase, form) of a single-phase stretch at p between lo and hi [K]: one phase, but
+    a fluid above the critical pressure is liquid up to the critical temperature and
+    supercritical beyond it."""
+    T_c, p_c = sub.critical
+    if key[0] == "solid" or not (p > p_c and lo < T_c < hi):
+        return key
+    at_c = held_value(phase_state(sub, T_c, p, "supercritical"), prop)
+    assert at_c is not None
+    return ("supercritical" if value > at_c else "liquid"), None
+
+
+def _region_T(sub: Substance, T: float, v: float, lo: float, hi: float, key: _Key) -> _Key:
+    """The (phase, form) of a single-phase stretch at T between lo and hi [Pa]: above the
+    critical temperature a fluid is vapor up to the critical pressure, supercritical beyond."""
+    T_c, p_c = sub.critical
+    if key[0] == "solid" or T <= T_c:
+        return key
+    if not lo < p_c < hi:
+        return ("supercritical" if lo >= p_c else "vapor"), None
+    at_c = held_value(phase_state(sub, T, p_c, "supercritical"), "v")
+    assert at_c is not None
+    return ("vapor" if v > at_c else "supercritical"), None
+
+
+def _on(sub: Substance, layer: Layer, side: str) -> StatePoint:
+    """The state on one side of a boundary: on the vapor-pressure curve the saturated liquid or
+    vapor of the reference EOS (its saturation call, exact on the curve), else the phase's model
+    at the boundary point."""
+    key = layer.above if side == "above" else layer.below
+    if (
+        layer.label == "vapor pressure"
+        and key[0] in ("liquid", "vapor")
+        and ({layer.below[0], layer.above[0]} == {"liquid", "vapor"})
+    ):
+        (hl, sl, rl), (hv, sv, rv) = sub.fluid.saturated(layer.T)
+        if key[0] == "liquid":
+            return StatePoint(layer.T, layer.p, "liquid", h=hl, s=sl, rho=rl, model=EOS_MODEL)
+        return StatePoint(layer.T, layer.p, "vapor", h=hv, s=sv, rho=rv, model=EOS_MODEL)
+    return phase_state(sub, layer.T, layer.p, *key)
 
 
 def _lever(
@@ -288,10 +376,6 @@ def _lever(
 
 def _fluid_key(sub: Substance, T: float, p: float) -> str:
     return sub.fluid_phase(T, p)
-
-
-def _scale(prop: str, value: float) -> float:
-    return max(abs(value), _SCALE[prop])
 
 
 def _check_form(sub: Substance, state: StatePoint, key: tuple[str, str | None]) -> StatePoint:
@@ -319,33 +403,52 @@ def _solve_T(
     f_lo: float | None,
     f_hi: float | None,
 ) -> StatePoint:
-    """The single-phase state at p between lo and hi [K] whose ``prop`` equals ``value``."""
+    """The single-phase state at p between lo and hi [K] whose ``prop`` equals ``value``: the
+    root finder from a guess interpolated between the ends of the stretch (h and s rise
+    smoothly with T in one phase), to 1e-12 of the temperature."""
     phase, form = key
     fluid = phase != "solid"
 
     def phase_of(T: float) -> str:
         return sub.fluid_phase(T, p) if fluid else "solid"
 
-    if fluid:  # the reference library's own flash first, checked against the value
-        try:
-            T, h, s, rho, q = sub.fluid.flash(prop, p, value)
-            got = h if prop == "h" else s
-            if (
-                lo <= T <= hi
-                and not (0.0 <= q <= 1.0)
-                and abs(got - value) <= _ACCEPT * _scale(prop, value)
-            ):
-                return StatePoint(T, p, phase_of(T), None, h=h, s=s, rho=rho, model=EOS_MODEL)
-        except PhasePathError:
-            pass
-
     def f(T: float) -> float:
         got = held_value(phase_state(sub, T, p, phase_of(T), form), prop)
         assert got is not None
         return got - value
 
-    r = find_root(f, lo, hi, f_lo=f_lo, f_hi=f_hi, end_slack=_END_SLACK, what=what)
-    return _check_form(sub, single_state(sub, r.root, p, phase_of(r.root), form), key)
+    if f_lo is None:
+        f_lo = f(lo)
+    if f_hi is None:
+        f_hi = f(hi)
+    # in the variable where the held property is nearly linear: T for h, ln T for s (c_p
+    # varies slowly), so that the secant steps from the interpolated guess converge at once
+    log = prop == "s" and lo > 0.0
+    u_lo, u_hi = (math.log(lo), math.log(hi)) if log else (lo, hi)
+
+    def g(u: float) -> float:
+        return f(math.exp(u) if log else u)
+
+    guess = slope = None
+    if f_lo < 0.0 < f_hi and u_hi > u_lo:
+        slope = (f_hi - f_lo) / (u_hi - u_lo)
+        guess = u_lo - f_lo / slope
+    # |f| within 1e-12 of the stretch's rise over one relative unit of T: T to about 1e-12
+    ftol = 1e-12 * abs(slope) * (1.0 if log else hi) if slope else 0.0
+    r = find_root(
+        g,
+        u_lo,
+        u_hi,
+        f_lo=f_lo,
+        f_hi=f_hi,
+        guess=guess,
+        slope=slope,
+        ftol=ftol,
+        end_slack=_END_SLACK,
+        what=what,
+    )
+    T = min(max(math.exp(r.root), lo), hi) if log else r.root
+    return _check_form(sub, single_state(sub, T, p, phase_of(T), form), key)
 
 
 def _solve_p(
