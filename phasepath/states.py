@@ -448,7 +448,62 @@ def _solve_T(
         what=what,
     )
     T = min(max(math.exp(r.root), lo), hi) if log else r.root
-    return _check_form(sub, single_state(sub, T, p, phase_of(T), form), key)
+    state = single_state(sub, T, p, phase_of(T), form)
+    got = held_value(state, prop)
+    if fluid and got is not None and abs(got - value) > 1e-9 * max(abs(value), 1.0):
+        near = _near_critical(sub, p, prop, value, lo, hi)  # T is ill-conditioned there
+        if near is not None:
+            return near
+    return _check_form(sub, state, key)
+
+
+_CRITICAL_BAND = 1e-2  # relative band in T about T_c where a near-critical isobar is solved in rho
+
+
+def _near_critical(
+    sub: Substance, p: float, prop: str, value: float, lo: float, hi: float
+) -> StatePoint | None:
+    """A single-phase state on an isobar near the critical pressure, solved in density: there
+    h and s change smoothly with density but are ill-conditioned in T (c_p grows without
+    bound at the critical point). ``lo``, ``hi``: the stretch of T it lies in."""
+    T_c, p_c = sub.critical
+    band = (T_c * (1 - _CRITICAL_BAND), T_c * (1 + _CRITICAL_BAND))
+    if not (abs(p / p_c - 1.0) <= 1e-3 and lo < band[1] and hi > band[0]):
+        return None
+    T_lo, T_hi = max(lo, band[0]), min(hi, band[1])
+    fluid = sub.fluid
+
+    def end_rho(T: float) -> float:
+        if T in (lo, hi) and p < p_c and sub.vapor is not None and T < T_c:
+            liquid, vapor = fluid.saturated(T)  # the stretch ends on the vapor-pressure curve
+            return float(vapor[2] if T == lo else liquid[2])
+        rho = phase_state(sub, T, p, sub.fluid_phase(T, p)).rho
+        assert rho is not None
+        return rho
+
+    def T_of(rho: float) -> float:
+        return find_root(
+            lambda T: fluid.state_DT(rho, T)[0] - p,
+            T_lo,
+            T_hi,
+            end_slack=1e-9,
+            what="an isobar near T_c",
+        ).root
+
+    def g(rho: float) -> float:
+        _, h, s = fluid.state_DT(rho, T_of(rho))
+        return (h if prop == "h" else s) - value
+
+    try:
+        rho_dense, rho_light = end_rho(T_lo), end_rho(T_hi)
+        rho = find_root(g, rho_light, rho_dense, what="an isobar near the critical point").root
+        T = T_of(rho)
+        _, h, s = fluid.state_DT(rho, T)
+    except PhasePathError:
+        return None
+    if abs((h if prop == "h" else s) - value) > 1e-9 * max(abs(value), 1.0):
+        return None
+    return StatePoint(T, p, sub.fluid_phase(T, p), None, h=h, s=s, rho=rho, model=EOS_MODEL)
 
 
 def _solve_p(

@@ -479,3 +479,39 @@ def test_the_solid_fuzz_reached_the_solid():
         pytest.skip("the fuzz did not run in this session")
     print(f"\nsolid fuzz: {SOLID}")
     assert SOLID["solid crossings"] >= 30
+
+
+# -- the cases named in the issue ------------------------------------------------------------------
+def test_nitrogen_valve_reports_the_wet_interval():
+    """A nitrogen valve from 164.37 K and 100 bar to 0.1 bar is wet between 987,630 Pa and
+    770,073 Pa (CoolProp 8.0.0 saturation enthalpies, PropsSI here, to the pascal); splitting
+    the leg at 8.5 bar leaves the crossings where they are."""
+    route = pp.Route("N2", T=164.37, p=1e7).isenthalp(p=1e4)
+    report = route.analyze()
+    kinds = [(c.kind, c.boundary) for c in report.crossings]
+    assert kinds == [
+        ("supercritical-exit", "critical isobar"),
+        ("condensation", "vapor pressure"),
+        ("vaporization", "vapor pressure"),
+    ]
+    h = report.legs[0].start.h
+    wet = [c.p for c in report.crossings[1:]]
+    assert [round(p) for p in wet] == [987630, 770073]
+    for p in wet:
+        assert PropsSI("Hmass", "P", p, "Q", 1, "Nitrogen") == pytest.approx(h, rel=1e-12)
+    split = pp.Route("N2", T=164.37, p=1e7).isenthalp(p=8.5e5).isenthalp(p=1e4).analyze()
+    assert [c.p for c in split.crossings if c.boundary == "vapor pressure"] == pytest.approx(
+        wet, rel=1e-12
+    )
+
+
+def test_a_flash_at_exactly_the_critical_pressure_works():
+    """The issue's failing case: a CO2 vent leg whose states pass p_c exactly."""
+    report = pp.Route("CO2", T=320.0, p=1.1157894736842105e7).isenthalp(p=101325.0).analyze()
+    kinds = [c.kind for c in report.crossings]
+    assert kinds[0] == "supercritical-exit" and kinds[-1] == "deposition"
+    end = report.legs[0].end
+    assert end.phase == "solid+vapor" and end.h == pytest.approx(report.legs[0].start.h, rel=1e-9)
+    T_c, p_c = pp.substance("CO2").critical
+    state = pp.states.flash_p(pp.substance("CO2"), p_c, "h", report.legs[0].start.h)
+    assert state.h == pytest.approx(report.legs[0].start.h, rel=1e-12)
