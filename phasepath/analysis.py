@@ -106,10 +106,13 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
         walk = _walk(sub, leg, corners[i], prev_end)
         walks.append(walk)
         # a curved next leg starts from this leg's end state, on the side this leg arrives from
-        curved_next = i + 1 < len(route.legs) and route.legs[i + 1].kind in CURVED_KINDS
+        nxt = route.legs[i + 1] if i + 1 < len(route.legs) else None
+        needs = nxt is not None and (
+            nxt.kind in CURVED_KINDS or ((nxt.T, nxt.p) == (leg.T, leg.p) and nxt.state)
+        )
         prev_end = (
             leg.state
-            if leg.state is not None or not curved_next
+            if leg.state is not None or not needs
             else _single(sub, StatePoint(leg.T, leg.p, "?"), walk.last)
         )
     crossings: list[Crossing] = []
@@ -196,6 +199,13 @@ def _walk(
     T0, p0 = corner
     if leg.kind in CURVED_KINDS:
         return _walk_curved(sub, leg, T0, p0, prev_end)
+    if (leg.T, leg.p) == (T0, p0) and leg.state is not None and prev_end is not None:
+        # an event leg that changes the state where it stands ("until fully vapor" from a
+        # two-phase state): its change is its own, at its start
+        start, end = prev_end.key, leg.state.key
+        c = _Candidate(T0 if leg.kind == "isobar" else p0, T0, p0, "corner", "corner", 0)
+        found = ((c, start, end),) if start != end else ()
+        return _Walk(start, end, found, (prev_end, leg.state))
     tr = _trace(sub, leg.kind, T0, p0, leg.T, leg.p)
     found = [
         (c, tr.phases[k], tr.phases[k + 1])

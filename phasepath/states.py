@@ -32,7 +32,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Callable
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING
 
 from .errors import NoModelError, OutOfRangeError, PhasePathError
@@ -52,6 +52,7 @@ __all__ = [
     "mixture",
     "temperature_on",
     "held_value",
+    "saturated_mixture",
     "Layer",
     "layers_at_p",
     "layers_at_T",
@@ -117,6 +118,20 @@ def mixture(
         rho=1.0 / v,
         model=model,
     )
+
+
+def saturated_mixture(sub: Substance, T: float, p: float, x: float) -> StatePoint:
+    """The state on the vapor-pressure curve at T [K] (vapor pressure p [Pa]) with vapor mass
+    fraction x: the saturated liquid for x = 0 and the saturated vapor for x = 1 (single
+    phases, with their vapor fraction 0 and 1), a liquid + vapor mixture between."""
+    (hl, sl, rl), (hv, sv, rv) = sub.fluid.saturated(T)
+    liquid = StatePoint(T, p, "liquid", vapor_fraction=0.0, h=hl, s=sl, rho=rl, model=EOS_MODEL)
+    vapor = StatePoint(T, p, "vapor", vapor_fraction=1.0, h=hv, s=sv, rho=rv, model=EOS_MODEL)
+    if x == 0.0:
+        return liquid
+    if x == 1.0:
+        return vapor
+    return mixture(T, p, "liquid+vapor", liquid, vapor, x)
 
 
 def temperature_on(b: Boundary, p: float) -> float:
@@ -271,14 +286,14 @@ def _walk_p(sub: Substance, p: float, prop: str, value: float, key_only: bool) -
             T_lo, f_lo = layer.T, a - value
             continue
         if value == a:
-            return up
+            return _exact(layer, up)
         down = _on(sub, layer, "below")
         b = held_value(down, prop)
         assert b is not None
         if value > b:
             return _lever(layer, down, up, b, a, value)
         if value == b:
-            return down
+            return _exact(layer, down)
         if key_only:
             return _region_p(sub, p, prop, value, T_lo, layer.T, layer.below)
         return _solve_T(sub, p, prop, value, T_lo, layer.T, layer.below, what, f_lo, b - value)
@@ -304,14 +319,14 @@ def _walk_T(sub: Substance, T: float, v: float, key_only: bool) -> StatePoint | 
                 return _region_T(sub, T, v, p_lo, layer.p, layer.below)
             return _solve_p(sub, T, v, p_lo, layer.p, layer.below, what, f_lo, b - v)
         if v == b:
-            return down
+            return _exact(layer, down)
         up = _on(sub, layer, "above")
         a = held_value(up, "v")
         assert a is not None
         if v > a:
             return _lever(layer, down, up, b, a, v)
         if v == a:
-            return up
+            return _exact(layer, up)
         p_lo, f_lo = layer.p, a - v
     above = layers[-1].above if layers else (_fluid_key(sub, T, sub.p_max), None)
     if key_only:
@@ -361,6 +376,14 @@ def _on(sub: Substance, layer: Layer, side: str) -> StatePoint:
             return StatePoint(layer.T, layer.p, "liquid", h=hl, s=sl, rho=rl, model=EOS_MODEL)
         return StatePoint(layer.T, layer.p, "vapor", h=hv, s=sv, rho=rv, model=EOS_MODEL)
     return phase_state(sub, layer.T, layer.p, *key)
+
+
+def _exact(layer: Layer, state: StatePoint) -> StatePoint:
+    """A state exactly at one side of a boundary: on the vapor-pressure curve the saturated
+    liquid (vapor fraction 0) or vapor (1) it is."""
+    if layer.label == "vapor pressure" and {layer.below[0], layer.above[0]} == {"liquid", "vapor"}:
+        return replace(state, vapor_fraction=0.0 if state.phase == "liquid" else 1.0)
+    return state
 
 
 def _lever(

@@ -164,7 +164,7 @@ def test_density_and_elevation_axes() -> None:
         ({"leg1_T": [250.0]}, "leg1_T", "isenthalp leg and its target is p"),
         ({"leg0_p": [1e5]}, "leg0_p", "names no value"),
         ({"start_density": [700.0]}, "start_density", "no start density"),
-        ({"start_quality": [0.5]}, "start_quality", "routes do not take a start quality"),
+        ({"start_quality": [0.5]}, "start_quality", "no start quality to vary"),
         ({"start_T": 300.0}, "start_T", "not a list of values"),
         ({"start_T": "20 degC"}, "start_T", "not a list of values"),
         ({"start_T": []}, "start_T", "has no values"),
