@@ -204,8 +204,8 @@ def _walk(
         # two-phase state): its change is its own, at its start
         start, end = prev_end.key, leg.state.key
         c = _Candidate(T0 if leg.kind == "isobar" else p0, T0, p0, "corner", "corner", 0)
-        found = ((c, start, end),) if start != end else ()
-        return _Walk(start, end, found, (prev_end, leg.state))
+        here = ((c, start, end),) if start != end else ()
+        return _Walk(start, end, here, (prev_end, leg.state))
     tr = _trace(sub, leg.kind, T0, p0, leg.T, leg.p)
     found = [
         (c, tr.phases[k], tr.phases[k + 1])

@@ -338,9 +338,9 @@ class Route:
     def _add(self, leg: Leg) -> Route:
         end = self.end
         n = len(self.legs) + 1
-        side = getattr(self, "_start_side", None)
+        side: StatePoint | None = getattr(self, "_start_side", None)
         if side is not None:
-            self._start_side = None
+            del self._start_side
             if not self.legs and end is self.start:
                 self._check(leg.T, leg.p, f"leg {n} ({leg.kind}) end state", leg.given)
                 self.start = Leg("start", end.T, end.p, end.given, state=side)
