@@ -258,13 +258,29 @@ class EOS:
         return self._finite(v, f"slope at T = {T} K, p = {p} Pa")
 
     def saturated(self, T: float) -> tuple[tuple[float, float, float], tuple[float, float, float]]:
-        """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]."""
+        """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]:
+        one saturation update, both phases read from it."""
         self._check_sat_T(T)
-        what = f"saturation at T = {T} K"
-        names = ("hmass", "smass", "rhomass")
-        hl, sl, rl = self._update(CP.QT_INPUTS, 0.0, T, names, what)
-        hv, sv, rv = self._update(CP.QT_INPUTS, 1.0, T, names, what)
-        return (hl, sl, rl), (hv, sv, rv)
+        with self._lock:
+            a = self._as
+            try:
+                self.calls += 1
+                a.update(CP.QT_INPUTS, 0.0, T)
+                liq = a.saturated_liquid_keyed_output
+                vap = a.saturated_vapor_keyed_output
+                out = (
+                    (liq(CP.iHmass), liq(CP.iSmass), liq(CP.iDmass)),
+                    (vap(CP.iHmass), vap(CP.iSmass), vap(CP.iDmass)),
+                )
+            except Exception as exc:
+                raise PropertyError(f"{self.name}: saturation at T = {T} K failed: {exc}") from None
+        for side in out:
+            for v in side:
+                self._finite(v, f"saturation at T = {T} K")
+        return (
+            (float(out[0][0]), float(out[0][1]), float(out[0][2])),
+            (float(out[1][0]), float(out[1][1]), float(out[1][2])),
+        )
 
     def _finite(self, v: float, what: str) -> float:
         v = float(v)

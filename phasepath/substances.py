@@ -316,6 +316,8 @@ class Substance:
     def check_state(self, T: float, p: float) -> None:
         """Raise a phasepath error unless (T, p) lies where the models are valid."""
         for v, what in ((T, "T"), (p, "p")):
+            if type(v) is float and v - v == 0.0:  # the common case: a finite float
+                continue
             if not isinstance(v, numbers.Real) or isinstance(v, bool) or not math.isfinite(v):
                 raise NonFiniteError(
                     f"{what} = {v!r} is not a finite number ({self.name}: "
@@ -396,7 +398,8 @@ class Substance:
                     return "solid", self.form_of_solid(T, p, above.solid_form)
             return "solid", self.solids.form_at(T, p)
         vapor = self.vapor
-        if vapor is not None and not T > self.critical[0] and p <= vapor.p_of_T(T):
+        T_c, p_c = self.critical
+        if vapor is not None and not T > T_c and p <= vapor.p_of_T(T):
             return "vapor", None  # below the vapor-pressure curve, whatever a melting line says
         if T < self._liquid_from:  # the gap below a melting curve's start: no liquid here
             start = self._melt_start
@@ -404,6 +407,10 @@ class Substance:
         above = self._solid_above(T, p)
         if above is not None:
             return "solid", self.form_of_solid(T, p, above.solid_form)
+        if T > T_c:
+            return ("supercritical" if p > p_c else "vapor"), None
+        if vapor is not None:  # above the vapor-pressure curve (checked above)
+            return "liquid", None
         return self.fluid_phase(T, p), None
 
     def form_of_solid(self, T: float, p: float, branch_form: str | None) -> str | None:
