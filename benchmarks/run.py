@@ -501,14 +501,9 @@ def _scan_flashes(route: pp.Route, n: int = SCAN_POINTS) -> tuple[list[float], i
     """The hand-written alternative for a curved leg: n PropsSI flashes along its pressure
     range, the bracket midpoints where CoolProp's phase (its quality) changes."""
     leg = route.legs[0]
-    start = route.start.state or route.end_state()
-    key, value = ("H", None), None
     end = leg.state
     assert end is not None
-    if leg.kind == "isenthalp":
-        key, value = "H", end.h
-    else:
-        key, value = "S", end.s
+    key, value = ("H", end.h) if leg.kind == "isenthalp" else ("S", end.s)
     ps = np.geomspace(route.start.p, leg.p, n)
     phases = []
     for p in ps.tolist():
@@ -517,7 +512,6 @@ def _scan_flashes(route: pp.Route, n: int = SCAN_POINTS) -> tuple[list[float], i
         except ValueError:
             q = math.nan  # below the triple point: CoolProp has no solid, the scan gives up there
         phases.append("two-phase" if 0.0 <= q <= 1.0 else ("?" if math.isnan(q) else "one"))
-    del start
     marks = [
         math.sqrt(ps[i] * ps[i + 1])
         for i in range(n - 1)
