@@ -92,9 +92,10 @@ def forget(sub: pp.Substance) -> Callable[[], None]:
         analysis.cache_clear()
         co2._js_terms.cache_clear()  # solid models: one evaluation serves h, s and v
         ice_ih._derivatives.cache_clear()
-        memo = getattr(sub.fluid, "_states", None)
-        if memo is not None:
-            memo.clear()
+        for memo_name in ("_states", "_saturated"):  # remembered states and saturation calls
+            memo = getattr(sub.fluid, memo_name, None)
+            if memo is not None:
+                memo.clear()
 
     return clear
 

@@ -76,6 +76,10 @@ class EOS:
         # (T, p, phase) -> (h, s, rho): a route's corners are evaluated again on every analysis
         # (a moved corner changes two legs and leaves the other states as they were)
         self._states: dict[tuple[float, float, str], tuple[float, float, float]] = {}
+        # T -> both saturated phases (the two sides of one boundary point are read together)
+        self._saturated: dict[
+            float, tuple[tuple[float, float, float], tuple[float, float, float]]
+        ] = {}
 
     # -- saturation ---------------------------------------------------------------------------
     def _check_sat_T(self, T: float) -> None:
@@ -261,6 +265,9 @@ class EOS:
         """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]:
         one saturation update, both phases read from it."""
         self._check_sat_T(T)
+        known = self._saturated.get(T)
+        if known is not None:
+            return known
         with self._lock:
             a = self._as
             try:
@@ -277,10 +284,14 @@ class EOS:
         for side in out:
             for v in side:
                 self._finite(v, f"saturation at T = {T} K")
-        return (
+        result = (
             (float(out[0][0]), float(out[0][1]), float(out[0][2])),
             (float(out[1][0]), float(out[1][1]), float(out[1][2])),
         )
+        if len(self._saturated) >= _STATE_CACHE:
+            self._saturated.clear()
+        self._saturated[T] = result
+        return result
 
     def _finite(self, v: float, what: str) -> float:
         v = float(v)

@@ -135,7 +135,7 @@ class IceModels(SolidModel):
     """
 
     name = "ice"
-    sources = (ice_ih.SOURCE, "Dunaeva2010")
+    sources = (ice_ih.SOURCE, "Dunaeva2010", "Journaux2020")
     MODEL = "ice Ih: IAPWS R10-06"
     SEAFREEZE_MODEL = "ice {form}: Journaux et al. 2020 (seafreeze)"
     #: Below 200 K ice Ih is named up to the Ih-III-liquid triple point (IAPWS R14-08, Table 1:

@@ -272,19 +272,21 @@ _Key = tuple[str, "str | None"]
 
 
 def _walk_p(sub: Substance, p: float, prop: str, value: float, key_only: bool) -> StatePoint | _Key:
+    """The walk at fixed p, from the warmest boundary down: h and s rise through every
+    boundary in turn, so a value at or above a boundary's cold side is decided there without
+    the boundaries below it (a state in the two-phase region needs the saturation call only)."""
     what = f"{sub.name} at p = {p:.6g} Pa with {prop} = {value:.6g}"
     layers = layers_at_p(sub, p)
-    T_lo = sub.T_min
-    if not layers or layers[0].below[0] != "solid":
-        T_lo = max(sub.T_min, sub.triple[0])
-    f_lo: float | None = None
-    for layer in layers:
+    T_hi, f_hi = sub.T_max, None
+    above_key = layers[-1].above if layers else (_fluid_key(sub, sub.T_max, p), None)
+    for layer in reversed(layers):
         up = _on(sub, layer, "above")
         a = held_value(up, prop)
         assert a is not None
-        if value > a:  # beyond this boundary
-            T_lo, f_lo = layer.T, a - value
-            continue
+        if value > a:  # above this boundary, below the one above it
+            if key_only:
+                return _region_p(sub, p, prop, value, layer.T, T_hi, above_key)
+            return _solve_T(sub, p, prop, value, layer.T, T_hi, above_key, what, a - value, f_hi)
         if value == a:
             return _exact(layer, up)
         down = _on(sub, layer, "below")
@@ -294,14 +296,13 @@ def _walk_p(sub: Substance, p: float, prop: str, value: float, key_only: bool) -
             return _lever(layer, down, up, b, a, value)
         if value == b:
             return _exact(layer, down)
-        if key_only:
-            return _region_p(sub, p, prop, value, T_lo, layer.T, layer.below)
-        return _solve_T(sub, p, prop, value, T_lo, layer.T, layer.below, what, f_lo, b - value)
-    top = (_fluid_key(sub, sub.T_max, p), None)
-    below = layers[-1].above if layers else top
+        T_hi, f_hi, above_key = layer.T, b - value, layer.below  # look further down
+    T_lo = sub.T_min
+    if not layers or layers[0].below[0] != "solid":
+        T_lo = max(sub.T_min, sub.triple[0])
     if key_only:
-        return _region_p(sub, p, prop, value, T_lo, sub.T_max, below)
-    return _solve_T(sub, p, prop, value, T_lo, sub.T_max, below, what, f_lo, None)
+        return _region_p(sub, p, prop, value, T_lo, T_hi, above_key)
+    return _solve_T(sub, p, prop, value, T_lo, T_hi, above_key, what, None, f_hi)
 
 
 def _walk_T(sub: Substance, T: float, v: float, key_only: bool) -> StatePoint | _Key:
