@@ -85,6 +85,7 @@ class Sheet:
     Tp: Callable[[float], tuple[float, float]] = field(repr=False)
     inverse: Callable[[float], float] | None = field(default=None, repr=False)
     dense_high: bool = False  # nodes denser toward hi (the critical point of the dome)
+    prefetch: Callable[[list[float]], None] | None = field(default=None, repr=False)
     _pieces: list[Piece] | None = field(default=None, init=False, repr=False)
 
     def pieces(self) -> list[Piece]:
@@ -278,11 +279,16 @@ def _curve_sheets(
         p = b.p_of_T(T)
         return _model(sub, T, p, "solid", sub.form_of_solid(T, p, b.solid_form), prop)
 
+    def prefetch(ts: list[float]) -> None:
+        ps = [b.p_of_T(T) for T in ts]
+        forms = [sub.form_of_solid(T, p, b.solid_form) for T, p in zip(ts, ps, strict=True)]
+        sub.solids.prefetch(ts, ps, forms)
+
     x = b.p_of_T if x_is_p else _same
     inverse = None if not x_is_p else _branch_inverse(b)
     return [
         Sheet(b.label, lo, hi, g_fluid, x, Tp, inverse),
-        Sheet(b.label, lo, hi, g_solid, x, Tp, inverse),
+        Sheet(b.label, lo, hi, g_solid, x, Tp, inverse, prefetch=prefetch),
     ]
 
 
@@ -356,6 +362,11 @@ def _evaluate(sheet: Sheet, t: float) -> tuple[float, float] | None:
 def _split(sheet: Sheet) -> list[Piece]:
     """Sample the sheet, keep the stretches a model covers, split them at the extrema."""
     ts = _nodes(sheet)
+    if sheet.prefetch is not None:
+        try:
+            sheet.prefetch(ts.tolist())
+        except PhasePathError:  # a speed-up only: the nodes are evaluated one by one below
+            pass
     values = [_evaluate(sheet, float(t)) for t in ts]
     pieces: list[Piece] = []
     run: list[tuple[float, float, float]] = []

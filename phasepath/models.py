@@ -113,6 +113,9 @@ class SolidModel:
         """The solid state with h, s and rho, or NoModelError."""
         raise NoModelError(f"phasepath has no published model of {self.name}")
 
+    def prefetch(self, Ts: list[float], ps: list[float], forms: list[str | None]) -> None:
+        """Evaluate many states at once where the model can (a speed-up only)."""
+
 
 class NoSolidModel(SolidModel):
     """A solid without a published property model in phasepath."""
@@ -149,6 +152,14 @@ class IceModels(SolidModel):
             except OutOfRangeError:  # on the fluid side of R14-08 by rounding: the branch's ice
                 pass
         return "Ih" if p <= self.IH_TOP else None
+
+    def prefetch(self, Ts: list[float], ps: list[float], forms: list[str | None]) -> None:
+        for form in {f for f in forms if f in ("II", "III", "V", "VI")}:
+            pick = [(T, p) for T, p, f in zip(Ts, ps, forms, strict=True) if f == form]
+            try:
+                seafreeze_ices.prefetch(form, [T for T, _ in pick], [p for _, p in pick])
+            except seafreeze_ices.MissingExtraError:
+                return
 
     def state(self, T: float, p: float, form: str | None = None) -> StatePoint:
         if form in ("II", "III", "V", "VI"):
