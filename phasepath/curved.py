@@ -160,6 +160,12 @@ def _x_p_sheets(
     if p_top > p_c:
 
         def g_ci(p: float) -> float:
+            if p > p_c:
+                try:  # unique phase there: no phase imposed, the density converged tightly
+                    h, s, rho = sub.fluid.state_unimposed(T_c, p)
+                    return {"h": h, "s": s}[prop]
+                except PhasePathError:
+                    pass
             return _model(sub, T_c, p, "supercritical", None, prop)
 
         out.append(Sheet("critical isotherm", p_c, p_top, g_ci, _same, lambda p: (T_c, p)))
@@ -526,7 +532,7 @@ def _root(
     lo_t, hi_t = (ta, tb) if ta < tb else (tb, ta)
     f_lo, f_hi = (fa, fb) if ta < tb else (fb, fa)
     guess, slope = _guess(piece, c, lo_t, hi_t)
-    r = find_root(
+    r = states.root(
         lambda t: sheet.g(t) - c,
         lo_t,
         hi_t,
@@ -610,12 +616,16 @@ def turning_point(
         return float(slope_at(prop, st.T, st.p, a.phase))
 
     try:
-        s_a, s_b = slope(x_a, a), slope(x_b, b)
-        if s_a * s_b >= 0.0:
+        if slope(x_a, a) * slope(x_b, b) >= 0.0:
             return None
-        lo, hi = (x_a, x_b) if x_a < x_b else (x_b, x_a)
-        f_lo, f_hi = (s_a, s_b) if x_a < x_b else (s_b, s_a)
-        x = find_root(slope, lo, hi, f_lo=f_lo, f_hi=f_hi, what="a turning point").root
+        # the same function at both ends of the bracket: states solved a hair inside it
+        lo, hi = sorted((x_a, x_b))
+        eps = 1e-9 * (hi - lo)
+        lo, hi = lo + eps, hi - eps
+        f_lo, f_hi = slope(lo), slope(hi)
+        if f_lo * f_hi >= 0.0:
+            return None
+        x = states.root(slope, lo, hi, f_lo=f_lo, f_hi=f_hi, what="a turning point").root
         return state_at(sub, prop, value, x)
     except PhasePathError:
         return None

@@ -209,6 +209,16 @@ class EOS:
         self._states[(T, p, phase)] = out
         return out
 
+    def state_unimposed(self, T: float, p: float) -> tuple[float, float, float]:
+        """(h, s, rho) of a single-phase state where the phase is unique (at or above the
+        critical temperature and pressure), with no phase imposed: there the library's own
+        phase logic converges the density more tightly than an imposed phase does (on the
+        critical isotherm, 3e-10 against 2e-16 in h)."""
+        h, s, rho = self._update(
+            CP.PT_INPUTS, p, T, ("hmass", "smass", "rhomass"), f"state at T = {T} K, p = {p} Pa"
+        )
+        return h, s, rho
+
     def state_DT(self, rho: float, T: float) -> tuple[float, float, float]:
         """(p [Pa], h [J/kg], s [J/(kg K)]) of a single-phase fluid state from density and T.
 

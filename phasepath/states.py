@@ -38,7 +38,7 @@ from typing import TYPE_CHECKING
 from .errors import NoModelError, OutOfRangeError, PhasePathError
 from .models import EOS_MODEL, phase_state
 from .records import StatePoint
-from .rootfind import find_root
+from .rootfind import RootResult, find_root
 from .substances import NO_SUBLIMATION
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -52,6 +52,7 @@ __all__ = [
     "mixture",
     "temperature_on",
     "held_value",
+    "root",
     "saturated_mixture",
     "Layer",
     "layers_at_p",
@@ -69,6 +70,36 @@ _SCALE = {
     "v": 1e-6,
 }  # floors of the scale of a held value (J/kg, J/(kg K), m3/kg)
 _ORDER = ("solid", "liquid", "supercritical", "vapor")  # the phases of a mixture, in writing order
+
+
+def root(
+    f: Callable[[float], float],
+    lo: float,
+    hi: float,
+    *,
+    f_lo: float | None = None,
+    f_hi: float | None = None,
+    **kw: object,
+) -> RootResult:
+    """:func:`phasepath.rootfind.find_root`, guarded: where values known beforehand at the
+    bracket's ends disagree in the last digits with the function there (a boundary's value from
+    the saturation call, the state from an imposed phase), the ends are evaluated afresh; no raw
+    library error leaves it."""
+    given = f_lo is not None or f_hi is not None
+    try:
+        return find_root(f, lo, hi, f_lo=f_lo, f_hi=f_hi, **kw)  # type: ignore[arg-type]
+    except PhasePathError:
+        if not given:
+            raise
+    except ValueError as exc:  # scipy: the ends do not bracket a root after all
+        if not given:
+            raise OutOfRangeError(f"no root of {kw.get('what', 'the equation')}: {exc}") from None
+    try:
+        return find_root(f, lo, hi, **kw)  # type: ignore[arg-type]
+    except PhasePathError:
+        raise
+    except ValueError as exc:
+        raise OutOfRangeError(f"no root of {kw.get('what', 'the equation')}: {exc}") from None
 
 
 def single_state(
@@ -459,7 +490,7 @@ def _solve_T(
         guess = u_lo - f_lo / slope
     # |f| within 1e-12 of the stretch's rise over one relative unit of T: T to about 1e-12
     ftol = 1e-12 * abs(slope) * (1.0 if log else hi) if slope else 0.0
-    r = find_root(
+    r = root(
         g,
         u_lo,
         u_hi,
@@ -581,7 +612,7 @@ def _solve_p(
     if phase == "solid":
         hi = _solid_top(gap, lo, hi)
         f_hi = None
-    r = find_root(
+    r = root(
         lambda p: _finite(gap(p)), lo, hi, f_lo=f_lo, f_hi=f_hi, end_slack=_END_SLACK, what=what
     )
     state = single_state(
