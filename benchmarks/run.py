@@ -23,9 +23,17 @@ What is measured
    from Python, as the browser's drag-end message does) and, unless ``--quick``, the
    click-to-table time of the real-browser test.
 5. Peak resident memory of a 1,000-route batch (``pp.analyze_many``) in a fresh process.
-6. The planner in a real browser (Voila and headless chromium, unless ``--quick``): from opening
+6. Exact curved legs and cold routes (:func:`section_exact`): a CO2 vent leg (60 bar and
+   20 °C to 1 atm) and an ideal-compressor leg (1 bar and 300 K to 80 bar), analysed cold,
+   against a scan of 2,000 CoolProp ``PropsSI`` (p, h) and (p, s) flashes along each leg's
+   pressure range; and a 10-leg CO2 isotherm/isobar route that no cache has seen against the
+   dense scan of 2,000 ``PropsSI`` saturation look-ups per leg. Both sides in this process,
+   medians, ratios side by side, and the crossings checked against the scans.
+7. The planner in a real browser (Voila and headless chromium, unless ``--quick``): from opening
    the page to the three drawn diagrams, with and without Voila's pre-started kernels; the median
    click-to-table and drag-end-to-table times.
+8. Sweeps (``benchmarks/sweeps.py``): a 100 x 100 vent grid on one and two worker processes,
+   throughput, the scaling ratio and peak memory (``--sweeps`` runs it; 20 x 20 with ``--quick``).
 """
 
 # ruff: noqa: E402, B023  (imports after the path fallback; closures are timed where made)
@@ -89,9 +97,10 @@ def forget(sub: pp.Substance) -> Callable[[], None]:
         analysis.cache_clear()
         co2._js_terms.cache_clear()  # solid models: one evaluation serves h, s and v
         ice_ih._derivatives.cache_clear()
-        memo = getattr(sub.fluid, "_states", None)
-        if memo is not None:
-            memo.clear()
+        for memo_name in ("_states", "_saturated"):  # remembered states and saturation calls
+            memo = getattr(sub.fluid, memo_name, None)
+            if memo is not None:
+                memo.clear()
 
     return clear
 
@@ -493,6 +502,125 @@ def section_memory(n: int) -> list[str]:
     return lines + [""]
 
 
+# -- 6. exact curved legs and cold routes ----------------------------------------------------------
+def _scan_flashes(route: pp.Route, n: int = SCAN_POINTS) -> tuple[list[float], int]:
+    """The hand-written alternative for a curved leg: n PropsSI flashes along its pressure
+    range, the bracket midpoints where CoolProp's phase (its quality) changes."""
+    leg = route.legs[0]
+    end = leg.state
+    assert end is not None
+    key, value = ("H", end.h) if leg.kind == "isenthalp" else ("S", end.s)
+    ps = np.geomspace(route.start.p, leg.p, n)
+    phases = []
+    for p in ps.tolist():
+        try:
+            q = CP.PropsSI("Q", "P", p, key, value, sub_name(route))
+        except ValueError:
+            q = math.nan  # below the triple point: CoolProp has no solid, the scan gives up there
+        phases.append("two-phase" if 0.0 <= q <= 1.0 else ("?" if math.isnan(q) else "one"))
+    marks = [
+        math.sqrt(ps[i] * ps[i + 1])
+        for i in range(n - 1)
+        if phases[i] != phases[i + 1] and "?" not in (phases[i], phases[i + 1])
+    ]
+    return marks, n
+
+
+def sub_name(route: pp.Route) -> str:
+    return route.substance.name
+
+
+def _scan_saturation(route: pp.Route, n: int = SCAN_POINTS) -> int:
+    """The dense scan of a straight route: n PropsSI saturation look-ups per leg."""
+    corners = route.corners()
+    name = sub_name(route)
+    T_t = route.substance.triple[0]
+    T_c = route.substance.critical[0]
+    calls = 0
+    for (T0, _), (T1, _) in zip(corners[:-1], corners[1:], strict=True):
+        for T in np.linspace(T0, T1, n).tolist():
+            Tq = min(max(T, T_t), T_c - 1e-6)  # a look-up on the curve at (or next to) T
+            CP.PropsSI("P", "T", Tq, "Q", 0, name)
+            calls += 1
+    return calls
+
+
+def _fresh_co2_route(k: int) -> pp.Route:
+    """The 10-leg CO2 route of section 1 with every coordinate moved by a new factor: no cache
+    has seen its legs."""
+    f = 1.0 + 1e-7 * (k + 1)
+    r = pp.Route("CO2", T=250.0 * f, p=10e5 * f)
+    r.isotherm(p=60e5 * f).isobar(T=300.0 * f).isotherm(p=100e5 * f).isobar(T=320.0 * f)
+    r.isotherm(p=50e5 * f).isobar(T=230.0 * f).isotherm(p=3000e5 * f).isotherm(p=2e5 * f)
+    return r.isobar(T=180.0 * f).isotherm(p=0.1e5 * f)
+
+
+def section_exact(repeats: int, scan_repeats: int) -> list[str]:
+    """Curved legs (vent, compressor) and a cold 10-leg route against PropsSI scans."""
+    lines = [
+        "6. Exact curved legs and cold routes against CoolProp PropsSI scans (2,000 per leg)",
+        "",
+    ]
+    vent = pp.Route("CO2", T=293.15, p=60e5, title="vent").isenthalp(p=101325.0)
+    comp = pp.Route("CO2", T=300.0, p=1e5, title="compressor").isentrope(p=80e5)
+    sub = vent.substance
+    t_first = time.perf_counter()
+    vent.analyze(), comp.analyze()  # the substance's boundary functions: built once, kept
+    t_first = time.perf_counter() - t_first
+    total_scan = total_pp = 0.0
+    for route in (vent, comp):
+        leg = route.legs[0]
+        report = route.analyze()
+        marks, _ = _scan_flashes(route)
+        t_scan = median_time(lambda: _scan_flashes(route), scan_repeats)
+        t_cold = median_time(route.analyze, repeats, setup=forget(sub))
+        total_scan += t_scan
+        total_pp += t_cold
+        mine = [c.p for c in report.crossings if c.boundary == "vapor pressure"]
+        found = all(any(abs(m / x - 1) < 5e-3 for x in mine) for m in marks)
+        lines += [
+            f"   {leg.kind} {route.title} ({route.start.p / 1e5:g} bar, {route.start.T:g} K -> "
+            f"{leg.p / 1e5:.5g} bar): {len(report.crossings)} crossings "
+            f"({', '.join(c.kind for c in report.crossings)})",
+            f"     scan, 2,000 PropsSI flashes:          {fmt_t(t_scan):>10}   median of "
+            f"{scan_repeats}; its changes of phase {len(marks)}, all found by phasepath: "
+            f"{'yes' if found else 'NO'}",
+            f"     phasepath analyze(), cold:            {fmt_t(t_cold):>10}   median of "
+            f"{repeats}   -> {t_scan / t_cold:,.0f}x",
+        ]
+    lines += [
+        f"   both legs: scan {fmt_t(total_scan)}, phasepath {fmt_t(total_pp)} -> "
+        f"{total_scan / total_pp:,.0f}x (target 300x); the substance's boundary functions, "
+        f"built once on first use: {fmt_t(t_first)}",
+        "",
+    ]
+    # a cold 10-leg route that no cache has seen
+    _fresh_co2_route(-1).analyze()
+    fresh = [_fresh_co2_route(k) for k in range(max(repeats, 5))]
+    times = []
+    for r in fresh:
+        t = time.perf_counter()
+        r.analyze()
+        times.append(time.perf_counter() - t)
+    t_route = statistics.median(times)
+    calls = _scan_saturation(fresh[0])
+    t_sat = median_time(lambda: _scan_saturation(fresh[0]), scan_repeats)
+    ev = count_evaluations(_fresh_co2_route(10_000))
+    lines += [
+        f"   10-leg CO2 isotherm/isobar route, new coordinates every run "
+        f"({len(fresh[0].analyze().crossings)} crossings):",
+        f"     scan, {calls:,} PropsSI saturation look-ups:  {fmt_t(t_sat):>10}   median of "
+        f"{scan_repeats}",
+        f"     phasepath analyze(), no cache has seen it: {fmt_t(t_route):>10}   median of "
+        f"{len(fresh)}   -> {t_sat / t_route:,.0f}x (target 1000x)",
+        f"     what it costs: {ev['eos']} EOS calls and {ev['boundary']} boundary-equation "
+        f"calls for {ev['crossings']} crossings (the states at the 11 corners, for heat and "
+        "work, are most of it)",
+        "",
+    ]
+    return lines
+
+
 _PLANNER_NB = {
     "cells": [
         {
@@ -714,6 +842,14 @@ def section_planner_latency(clicks: int, drags: int) -> list[str]:
     return lines + [""]
 
 
+def section_sweeps(quick: bool) -> list[str]:
+    """8. The sweep benchmark of ``benchmarks/sweeps.py`` (each run in a fresh process)."""
+    sys.path.insert(0, str(Path(__file__).resolve().parent))
+    import sweeps
+
+    return ["8. Sweeps: a vent grid on one and two worker processes", "", *sweeps.run(quick), ""]
+
+
 def main(argv: list[str] | None = None) -> int:
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument(
@@ -721,11 +857,16 @@ def main(argv: list[str] | None = None) -> int:
     )
     ap.add_argument("--no-browser", action="store_true", help="skip the real-browser figure")
     ap.add_argument(
-        "--planner", action="store_true", help="only the planner in a real browser (section 6)"
+        "--planner", action="store_true", help="only the planner in a real browser (section 7)"
     )
+    ap.add_argument("--sweeps", action="store_true", help="only the sweep benchmark (section 8)")
     args = ap.parse_args(argv)
     if args.planner:
         for line in section_planner_latency(clicks=15, drags=15):
+            print(line, flush=True)
+        return 0
+    if args.sweeps:
+        for line in section_sweeps(args.quick):
             print(line, flush=True)
         return 0
     repeats, scan_repeats = (15, 3) if args.quick else (101, 9)
@@ -742,9 +883,13 @@ def main(argv: list[str] | None = None) -> int:
         print(line, flush=True)
     for line in section_memory(200 if args.quick else 1000):
         print(line, flush=True)
+    for line in section_exact(15 if args.quick else 101, 3 if args.quick else 9):
+        print(line, flush=True)
     if not (args.quick or args.no_browser):
         for line in section_planner_latency(clicks=15, drags=15):
             print(line, flush=True)
+    for line in section_sweeps(args.quick):
+        print(line, flush=True)
     return 0
 
 

@@ -37,18 +37,20 @@ from dataclasses import dataclass, replace
 from functools import lru_cache
 from typing import TYPE_CHECKING
 
-from . import states
+from . import curved, states
 from .correlations.atmosphere import ambient_pressure
 from .energetics import latent_heat, leg_heat_work
 from .errors import PhasePathError, RouteError
-from .hazards import cautions, crossing_hazards, leg_hazards
-from .paths import trace
+from .hazards import NEAR_CRITICAL, cautions, crossing_hazards, leg_hazards
 from .records import (
     BASES,
     CURVED_KINDS,
+    LEG_KINDS,
+    TOLERANCE,
     Crossing,
     LegSummary,
     StatePoint,
+    boundary_kind,
     boundary_of,
     crossing_kind,
     describe_change,
@@ -66,8 +68,6 @@ __all__ = ["analyze", "range_warnings", "TOLERANCE", "cache_clear"]
 #: Relative distance below which a candidate counts as sitting on a leg's end, and below which
 #: two candidates count as one point (three curves meeting at a triple point).
 _END_TOL = 1e-9
-#: Guaranteed relative agreement between a crossing and its boundary.
-TOLERANCE = 1e-9
 
 
 @dataclass(frozen=True)
@@ -106,10 +106,13 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
         walk = _walk(sub, leg, corners[i], prev_end)
         walks.append(walk)
         # a curved next leg starts from this leg's end state, on the side this leg arrives from
-        curved_next = i + 1 < len(route.legs) and route.legs[i + 1].kind in CURVED_KINDS
+        nxt = route.legs[i + 1] if i + 1 < len(route.legs) else None
+        needs = nxt is not None and (
+            nxt.kind in CURVED_KINDS or ((nxt.T, nxt.p) == (leg.T, leg.p) and nxt.state)
+        )
         prev_end = (
             leg.state
-            if leg.state is not None or not curved_next
+            if leg.state is not None or not needs
             else _single(sub, StatePoint(leg.T, leg.p, "?"), walk.last)
         )
     crossings: list[Crossing] = []
@@ -131,7 +134,9 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
                 )
             )
         found += [
-            _crossing(sub, step, leg.kind, c, before, after, "")
+            _crossing(
+                sub, step, leg.kind, c, before, after, "corner" if c.method == "corner" else ""
+            )
             for c, before, after in walk.crossings
         ]
         end_key = walk.last
@@ -149,6 +154,8 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
             else (_single(sub, walk.path[-1], end_key))
         )
         heat, work, note = leg_heat_work(leg.kind, start, end, basis)
+        for flag in dict.fromkeys(c.flag for c in found if c.flag):
+            note += f"; {flag}"
         if leg.kind == "isenthalp" and end.p > start.p:
             note += "; pressure rises at constant enthalpy: no valve does this"
         hazards = leg_hazards(sub, leg.kind, list(walk.path), found, leg.event)
@@ -192,11 +199,18 @@ def _walk(
     T0, p0 = corner
     if leg.kind in CURVED_KINDS:
         return _walk_curved(sub, leg, T0, p0, prev_end)
+    if (leg.T, leg.p) == (T0, p0) and leg.state is not None and prev_end is not None:
+        # an event leg that changes the state where it stands ("until fully vapor" from a
+        # two-phase state): its change is its own, at its start
+        start, end = prev_end.key, leg.state.key
+        c = _Candidate(T0 if leg.kind == "isobar" else p0, T0, p0, "corner", "corner", 0)
+        here = ((c, start, end),) if start != end else ()
+        return _Walk(start, end, here, (prev_end, leg.state))
     tr = _trace(sub, leg.kind, T0, p0, leg.T, leg.p)
     found = [
         (c, tr.phases[k], tr.phases[k + 1])
         for k, c in enumerate(tr.candidates)
-        if tr.phases[k][0] != tr.phases[k + 1][0]
+        if tr.phases[k] != tr.phases[k + 1]
     ]
     last = tr.phases[-1]
     if leg.state is not None and state_key(leg.state) != last:
@@ -228,47 +242,101 @@ def _walk(
 def _walk_curved(
     sub: Substance, leg: Leg, T0: float, p0: float, prev_end: StatePoint | None
 ) -> _Walk:
+    """A curved leg: its crossings by root-finding on the boundary functions of the held
+    property (:mod:`phasepath.curved`), the phase between them from the state at the middle."""
     assert leg.state is not None
     start = (
         prev_end
         if prev_end is not None
         else _single(sub, StatePoint(T0, p0, "?"), sub.classify(T0, p0))
     )
-    if leg.kind == "isochore":
-        v = 1.0 / (start.rho or leg.state.rho or 1.0)
+    prop = LEG_KINDS[leg.kind].held
+    value = states.held_value(start, prop)
+    if value is None:
+        raise RouteError(f"the {leg.kind} leg starts from a state with no model: {start.model}")
+    sealed = prop == "v"
+    x0, x1 = (start.T, leg.T) if sealed else (start.p, leg.p)
+    found = curved.candidates(sub, prop, value, x0, x1)
+    cands = _inside([_Candidate(*c) for c in found], x0, x1)
+    xs = [x0] + [c.x for c in cands] + [x1]
+    keys = [
+        curved.key_at(sub, prop, value, 0.5 * (a + b) if sealed else _pmid(a, b))
+        for a, b in zip(xs[:-1], xs[1:], strict=True)
+    ]
+    crossings = []
+    points: list[StatePoint] = [start]
+    if start.key != keys[0]:
+        # the leg starts on a boundary and runs into the next region from it (saturated vapor
+        # into the two-phase region): the state does not jump, the change begins on this leg
+        corner = _Candidate(x0, start.T, start.p, "corner", "corner", 0)
+        crossings.append((corner, start.key, keys[0]))
+    for k, c in enumerate(cands):
+        if keys[k] == keys[k + 1]:
+            continue
+        if math.isnan(c.T):  # a fixed point of the coordinate: the state there
+            at = curved.state_at(sub, prop, value, c.x)
+            c = replace(c, T=at.T, p=at.p, boundary=_fixed_label(sub, c, at))
+        label = c.boundary
+        if "+" in keys[k][0] and "+" in keys[k + 1][0]:
+            label = "triple point"  # one two-phase mixture to another
+        crossings.append((replace(c, boundary=label), keys[k], keys[k + 1]))
+        points.append(StatePoint(c.T, c.p, *keys[k + 1]))
+    points.append(leg.state)
+    path = _key_states(sub, prop, value, points, sealed)
+    return _Walk(start.key, keys[-1], tuple(crossings), tuple(path))
 
-        def state_at(x: float) -> StatePoint:
-            return states.flash_Tv(sub, x, v)
 
-        x0, x1, geometric = T0, leg.T, False
-    else:
-        prop = "h" if leg.kind == "isenthalp" else "s"
-        value = start.h if prop == "h" else start.s
-        assert value is not None
-
-        def state_at(x: float) -> StatePoint:
-            return states.flash_p(sub, x, prop, value)
-
-        x0, x1, geometric = p0, leg.p, True
-    path, events = trace(state_at, x0, x1, geometric, first=start)
-    found = []
+def _fixed_label(sub: Substance, c: _Candidate, at: StatePoint) -> str:
+    """The boundary a fixed point of a curved leg lies on."""
+    T_t, p_t = sub.triple
     T_c, p_c = sub.critical
-    for before, after, count in events:
-        on = after if "+" in after.phase else before
-        x = on.T if leg.kind == "isochore" else on.p
-        kind = crossing_kind(before.phase, after.phase)
-        label = boundary_of(kind)
-        if "+" in before.phase and "+" in after.phase:
-            label = "triple point"
-        elif kind.startswith("supercritical"):
-            label = (
-                "critical isobar"
-                if on.T > T_c and abs(on.p / p_c - 1) < 1e-6
-                else ("critical isotherm")
-            )
-        cand = _Candidate(x, on.T, on.p, label, "bisection", count)
-        found.append((cand, state_key(before), state_key(after)))
-    return _Walk(path[0].key, path[-1].key, tuple(found), tuple(path))
+    if math.isclose(at.p, p_t, rel_tol=_END_TOL) or math.isclose(at.T, T_t, rel_tol=_END_TOL):
+        return "triple point"
+    if math.isclose(at.p, p_c, rel_tol=_END_TOL) and at.T > T_c:
+        return "critical isobar"
+    if math.isclose(at.T, T_c, rel_tol=_END_TOL):
+        return "critical isotherm"
+    return "branch junction"
+
+
+def _key_states(
+    sub: Substance, prop: str, value: float, points: list[StatePoint], sealed: bool
+) -> list[StatePoint]:
+    """The states a curved leg's flags are read from, in leg order: its ends and crossings,
+    where its temperature (pressure on a sealed vessel) turns inside a single-phase stretch,
+    and where it crosses the edges of the near-critical box (between two such states T and p
+    are monotone, so these are all the states that decide a flag)."""
+    T_c, p_c = sub.critical
+    dT, dp = NEAR_CRITICAL
+    box = (T_c * (1 - dT), T_c * (1 + dT), p_c * (1 - dp), p_c * (1 + dp))
+    edges = (box[0], box[1]) if sealed else (box[2], box[3])
+    out = [points[0]]
+    for a, b in zip(points[:-1], points[1:], strict=True):
+        xa, xb = (a.T, b.T) if sealed else (a.p, b.p)
+        inner = []
+        turn = curved.turning_point(sub, prop, value, a, b, xa, xb)
+        if turn is not None:
+            inner.append(turn)
+        for seg_a, seg_b in zip([a, *inner], [*inner, b], strict=True):
+            if not _meets(seg_a, seg_b, box):
+                continue
+            ya, yb = (seg_a.T, seg_b.T) if sealed else (seg_a.p, seg_b.p)
+            for x in edges:
+                if min(ya, yb) < x < max(ya, yb):
+                    inner.append(curved.state_at(sub, prop, value, x))
+        inner.sort(key=lambda st: abs((st.T if sealed else st.p) - xa))
+        out += [*inner, b]
+    return out
+
+
+def _meets(a: StatePoint, b: StatePoint, box: tuple[float, float, float, float]) -> bool:
+    """True where the rectangle spanned by two states overlaps the box (T_lo, T_hi, p_lo, p_hi)."""
+    return not (
+        max(a.T, b.T) < box[0]
+        or min(a.T, b.T) > box[1]
+        or max(a.p, b.p) < box[2]
+        or min(a.p, b.p) > box[3]
+    )
 
 
 def _single(sub: Substance, where: StatePoint, key: tuple[str, str | None]) -> StatePoint:
@@ -314,8 +382,26 @@ def _crossing(
         at_corner=where == "corner",
         detail=describe_change(before[0], after[0]),
     )
+    flag = _flag(sub, c)
+    if flag:
+        c = replace(c, flag=flag)
     hz = crossing_hazards(sub, leg_kind, c)
     return replace(c, hazards=hz) if hz else c
+
+
+def _flag(sub: Substance, c: Crossing) -> str:
+    """What to know about the curve a crossing lies on (see ``Crossing.flag``)."""
+    for b in sub.boundaries:
+        if b.label == c.boundary or (
+            c.at_corner and b.kind == boundary_kind(c.kind) and b.T_min <= c.T <= b.T_max
+        ):
+            if not b.reliable:
+                return b.note
+    if c.kind in ("melting", "freezing", "sublimation", "deposition") and sub.in_melting_gap(
+        c.T, c.p
+    ):
+        return sub.melting_gap()
+    return ""
 
 
 def _ambient_note(sub: Substance, elevation: float) -> str:
@@ -393,7 +479,7 @@ def _inside(cands: list[_Candidate], x0: float, x1: float) -> list[_Candidate]:
 
 def _isotherm_candidates(sub: Substance, T: float, p0: float, p1: float) -> list[_Candidate]:
     out = []
-    for b in sub.boundaries:
+    for b in (*sub.boundaries, *sub.solid_boundaries):
         if b.T_min <= T <= b.T_max:
             p = b.p_of_T(T)
             out.append(_Candidate(p, T, p, b.label, "direct", 1))
@@ -406,7 +492,7 @@ def _isotherm_candidates(sub: Substance, T: float, p0: float, p1: float) -> list
 def _isobar_candidates(sub: Substance, p: float, T0: float, T1: float) -> list[_Candidate]:
     lo, hi = min(T0, T1), max(T0, T1)
     out = []
-    for b in sub.boundaries:
+    for b in (*sub.boundaries, *sub.solid_boundaries):
         if b.T_max < lo or b.T_min > hi:
             continue
         for r in b.temperatures_at(p):

@@ -150,6 +150,17 @@ SOURCES: dict[str, str] = {
         "of argon, helium, ice (H2O), and hydrogen (H2), Phys. Rev. B 61, 6535 (2000), "
         "doi:10.1103/PhysRevB.61.6535"
     ),
+    "Dunaeva2010": (
+        "Dunaeva, Antsyshkin & Kuskov, Phase diagram of H2O: Thermodynamic functions of the "
+        "phase transitions of high-pressure ices, Solar System Research 44, 202-222 (2010), "
+        "doi:10.1134/S0038094610030044 (Table 2: equations of the phase boundaries)"
+    ),
+    "Journaux2020": (
+        "Journaux et al., Holistic Approach for Studying Planetary Hydrospheres: Gibbs "
+        "Representation of Ices Thermodynamics, Elasticity, and the Water Phase Diagram to "
+        "2,300 MPa, J. Geophys. Res. Planets 125, e2019JE006176 (2020), doi:10.1029/2019JE006176 "
+        "(software: seafreeze, GPL-3.0; an optional extra of phasepath)"
+    ),
     "Younglove1982": (
         "Younglove, Thermophysical Properties of Fluids. I. Argon, Ethylene, Parahydrogen, "
         "Nitrogen, Nitrogen Trifluoride, and Oxygen, J. Phys. Chem. Ref. Data 11, Suppl. 1 (1982)"

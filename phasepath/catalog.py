@@ -14,6 +14,17 @@ True
 True
 >>> display_name("CO2"), display_name("water"), display_name("R134a")
 ('carbon dioxide (CO2)', 'water (H2O)', 'R134a (C2H2F4)')
+
+Mixtures are refused: the reference library's predefined blends and air
+(``fluid_info(name, "pure") == "false"``) have a bubble point and a dew point that differ at a
+given pressure, so they have no single vapor-pressure curve to cross.
+
+>>> substance("R410A")  # doctest: +ELLIPSIS
+Traceback (most recent call last):
+...
+phasepath.errors.UnknownSubstanceError: R410A is a mixture (a predefined blend), not a pure...
+>>> "Air" in substances()
+False
 """
 
 from __future__ import annotations
@@ -85,9 +96,26 @@ def _alias_map() -> dict[str, str]:
     return out
 
 
+@cache
+def _pure(name: str) -> bool:
+    """True for a pure fluid of the reference library (False for its blends and air)."""
+    return fluid_info(name, "pure").strip().lower() == "true"
+
+
 def substances() -> list[str]:
-    """Every substance of the reference library, by its CoolProp name."""
-    return fluid_names()
+    """Every pure substance of the reference library, by its CoolProp name (blends left out)."""
+    return [n for n in fluid_names() if _pure(n)]
+
+
+def _mixture(name: str, typed: object) -> UnknownSubstanceError:
+    what = "of nitrogen, oxygen and argon" if name == "Air" else "a predefined blend"
+    return UnknownSubstanceError(
+        f"{name} is a mixture ({what}), not a pure substance: at a given pressure it boils "
+        f"over a range of temperatures, from its bubble point to its dew point, so it has no "
+        f"single vapor-pressure curve to cross and phasepath does not model it (it plans routes "
+        f"of pure substances; phasepath.substances() lists them)",
+        value=typed,
+    )
 
 
 def substance(name: object) -> Substance:
@@ -107,6 +135,8 @@ def substance(name: object) -> Substance:
         if name.strip() in _REGISTRY:
             return _REGISTRY[name.strip()]
         raise _unknown(name)
+    if not _pure(resolved):
+        raise _mixture(resolved, name)
     with _LOADING:  # first use from several threads at once: one Substance, one CoolProp load
         return _reference(resolved)
 
@@ -121,7 +151,7 @@ def _unknown(name: object) -> UnknownSubstanceError:
     if isinstance(name, str) and name.strip():
         keys = _alias_map()
         for c in difflib.get_close_matches(_key(name), list(keys), n=4, cutoff=0.6):
-            if keys[c] not in suggestions:
+            if keys[c] not in suggestions and _pure(keys[c]):
                 suggestions.append(keys[c])
     hint = f"; did you mean {', '.join(map(repr, suggestions[:3]))}?" if suggestions else ""
     return UnknownSubstanceError(

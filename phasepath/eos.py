@@ -76,6 +76,10 @@ class EOS:
         # (T, p, phase) -> (h, s, rho): a route's corners are evaluated again on every analysis
         # (a moved corner changes two legs and leaves the other states as they were)
         self._states: dict[tuple[float, float, str], tuple[float, float, float]] = {}
+        # T -> both saturated phases (the two sides of one boundary point are read together)
+        self._saturated: dict[
+            float, tuple[tuple[float, float, float], tuple[float, float, float]]
+        ] = {}
 
     # -- saturation ---------------------------------------------------------------------------
     def _check_sat_T(self, T: float) -> None:
@@ -205,6 +209,16 @@ class EOS:
         self._states[(T, p, phase)] = out
         return out
 
+    def state_unimposed(self, T: float, p: float) -> tuple[float, float, float]:
+        """(h, s, rho) of a single-phase state where the phase is unique (at or above the
+        critical temperature and pressure), with no phase imposed: there the library's own
+        phase logic converges the density more tightly than an imposed phase does (on the
+        critical isotherm, 3e-10 against 2e-16 in h)."""
+        h, s, rho = self._update(
+            CP.PT_INPUTS, p, T, ("hmass", "smass", "rhomass"), f"state at T = {T} K, p = {p} Pa"
+        )
+        return h, s, rho
+
     def state_DT(self, rho: float, T: float) -> tuple[float, float, float]:
         """(p [Pa], h [J/kg], s [J/(kg K)]) of a single-phase fluid state from density and T.
 
@@ -234,14 +248,60 @@ class EOS:
         )
         return T, h, s, rho, q
 
+    def slope_along(self, held: str, T: float, p: float, phase: str) -> float:
+        """The slope of a curved leg at a single-phase state: dT/dp [K/Pa] at constant h or s,
+        dp/dT [Pa/K] at constant density ("v")."""
+        of, wrt, const = {
+            "h": (CP.iT, CP.iP, CP.iHmass),
+            "s": (CP.iT, CP.iP, CP.iSmass),
+            "v": (CP.iP, CP.iT, CP.iDmass),
+        }[held]
+        with self._lock:
+            a = self._as
+            try:
+                self.calls += 1
+                a.specify_phase(_PHASE_FLAG[phase])
+                a.update(CP.PT_INPUTS, p, T)
+                v = a.first_partial_deriv(of, wrt, const)
+            except Exception as exc:
+                raise PropertyError(
+                    f"{self.name}: slope at T = {T} K, p = {p} Pa failed: {exc}"
+                ) from None
+            finally:
+                a.unspecify_phase()
+        return self._finite(v, f"slope at T = {T} K, p = {p} Pa")
+
     def saturated(self, T: float) -> tuple[tuple[float, float, float], tuple[float, float, float]]:
-        """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]."""
+        """((h, s, rho) of the saturated liquid, (h, s, rho) of the saturated vapor) at T [K]:
+        one saturation update, both phases read from it."""
         self._check_sat_T(T)
-        what = f"saturation at T = {T} K"
-        names = ("hmass", "smass", "rhomass")
-        hl, sl, rl = self._update(CP.QT_INPUTS, 0.0, T, names, what)
-        hv, sv, rv = self._update(CP.QT_INPUTS, 1.0, T, names, what)
-        return (hl, sl, rl), (hv, sv, rv)
+        known = self._saturated.get(T)
+        if known is not None:
+            return known
+        with self._lock:
+            a = self._as
+            try:
+                self.calls += 1
+                a.update(CP.QT_INPUTS, 0.0, T)
+                liq = a.saturated_liquid_keyed_output
+                vap = a.saturated_vapor_keyed_output
+                out = (
+                    (liq(CP.iHmass), liq(CP.iSmass), liq(CP.iDmass)),
+                    (vap(CP.iHmass), vap(CP.iSmass), vap(CP.iDmass)),
+                )
+            except Exception as exc:
+                raise PropertyError(f"{self.name}: saturation at T = {T} K failed: {exc}") from None
+        for side in out:
+            for v in side:
+                self._finite(v, f"saturation at T = {T} K")
+        result = (
+            (float(out[0][0]), float(out[0][1]), float(out[0][2])),
+            (float(out[1][0]), float(out[1][1]), float(out[1][2])),
+        )
+        if len(self._saturated) >= _STATE_CACHE:
+            self._saturated.clear()
+        self._saturated[T] = result
+        return result
 
     def _finite(self, v: float, what: str) -> float:
         v = float(v)

@@ -62,10 +62,11 @@ def crossing_hazards(sub: Substance, leg_kind: str, c: Crossing) -> tuple[Hazard
     out = []
     if LEG_KINDS[leg_kind].flowing and "solid" in c.to_phase and "solid" not in c.from_phase:
         name = sub.solids.name
+        flag = f" ({c.flag})" if c.flag else ""
         out.append(
             Hazard(
                 "solid-formation",
-                f"{name} forms at T = {c.T:.5g} K, p = {c.p:.5g} Pa on a flowing leg",
+                f"{name} forms at T = {c.T:.5g} K, p = {c.p:.5g} Pa on a flowing leg{flag}",
                 _solid_caution(
                     sub,
                     f"{name.capitalize()} can plug lines, valves and relief devices and release "
@@ -183,6 +184,23 @@ def _sealed(states: Sequence[StatePoint], crossings: Sequence[Crossing]) -> list
                 )
             )
     p_top = max(s.p for s in states)
+    freezing = [
+        c for c in crossings if "solid" in c.to_phase and "liquid" in c.to_phase + c.from_phase
+    ]
+    if freezing:
+        c = freezing[0]
+        out.append(
+            Hazard(
+                "sealed-freezing",
+                f"the contents start to freeze in the sealed vessel at T = {c.T:.5g} K, "
+                f"p = {c.p:.5g} Pa; the pressure then follows the melting curve, up to "
+                f"{p_top:.5g} Pa on this leg",
+                "A liquid freezing in a closed vessel or pipe can build pressure far beyond any "
+                "rating and burst it (the burst-pipe case): drain or heat-trace what frost can "
+                f"reach, and never cool a liquid-full closed vessel below its freezing point. "
+                f"{DEFER}",
+            )
+        )
     if p_top > states[0].p * 1.001:
         out.append(
             Hazard(

@@ -24,9 +24,9 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
-from .correlations import co2, ice_ih
+from .correlations import co2, ice_ih, seafreeze_ices, water_ice_phases
 from .correlations.vapor_pressure import R
-from .errors import NoModelError, PhasePathError
+from .errors import NoModelError, OutOfRangeError, PhasePathError
 from .records import LatentHeat, StatePoint
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -47,7 +47,15 @@ __all__ = [
 
 EOS_MODEL = "reference EOS (CoolProp)"
 #: Crossing kinds that have a latent heat.
-FIRST_ORDER = ("melting", "freezing", "vaporization", "condensation", "sublimation", "deposition")
+FIRST_ORDER = (
+    "melting",
+    "freezing",
+    "vaporization",
+    "condensation",
+    "sublimation",
+    "deposition",
+    "solid-transition",
+)
 
 
 def phase_state(
@@ -105,6 +113,9 @@ class SolidModel:
         """The solid state with h, s and rho, or NoModelError."""
         raise NoModelError(f"phasepath has no published model of {self.name}")
 
+    def prefetch(self, Ts: list[float], ps: list[float], forms: list[str | None]) -> None:
+        """Evaluate many states at once where the model can (a speed-up only)."""
+
 
 class NoSolidModel(SolidModel):
     """A solid without a published property model in phasepath."""
@@ -114,20 +125,52 @@ class NoSolidModel(SolidModel):
 
 
 class IceModels(SolidModel):
-    """Water's ices: ice Ih from IAPWS R10-06 (reference state of IAPWS-95); the high-pressure
-    ices are named by their melting branches but have no property model here."""
+    """Water's ices, named by one function and modelled where a published model exists.
+
+    The form of ice at a state is :func:`phasepath.correlations.water_ice_phases.ice_form`
+    (Dunaeva et al. 2010 between the ices, IAPWS R14-08 at the melting curves) from 200 K up;
+    below 200 K, outside the solid-solid lines of that source, ice Ih is named up to the
+    Ih-III-liquid triple-point pressure (IAPWS R14-08, Table 1: 208.566 MPa) and no form above.
+    Properties: ice Ih from IAPWS R10-06 (reference state of IAPWS-95); ices II, III, V and VI
+    from the Gibbs-energy representations of Journaux et al. (2020) where the optional package
+    seafreeze is installed (``pip install phasepath[ices]``, same reference state); none for
+    ice VII.
+    """
 
     name = "ice"
-    sources = (ice_ih.SOURCE,)
+    sources = (ice_ih.SOURCE, "Dunaeva2010", "Journaux2020")
     MODEL = "ice Ih: IAPWS R10-06"
-    #: Below every melting branch ice Ih is stable up to the Ih-III-liquid triple point
-    #: (IAPWS R14-08, Table 1: 208.566 MPa).
+    SEAFREEZE_MODEL = "ice {form}: Journaux et al. 2020 (seafreeze)"
+    #: Below 200 K ice Ih is named up to the Ih-III-liquid triple point (IAPWS R14-08, Table 1:
+    #: 208.566 MPa).
     IH_TOP = 208.566e6
 
     def form_at(self, T: float, p: float) -> str | None:
+        if T >= water_ice_phases.T_MIN and p <= water_ice_phases.P_MAX:
+            try:
+                return water_ice_phases.ice_form(T, p)
+            except OutOfRangeError:  # on the fluid side of R14-08 by rounding: the branch's ice
+                pass
         return "Ih" if p <= self.IH_TOP else None
 
+    def prefetch(self, Ts: list[float], ps: list[float], forms: list[str | None]) -> None:
+        for form in {f for f in forms if f in ("II", "III", "V", "VI")}:
+            pick = [(T, p) for T, p, f in zip(Ts, ps, forms, strict=True) if f == form]
+            try:
+                seafreeze_ices.prefetch(form, [T for T, _ in pick], [p for _, p in pick])
+            except seafreeze_ices.MissingExtraError:
+                return
+
     def state(self, T: float, p: float, form: str | None = None) -> StatePoint:
+        if form in ("II", "III", "V", "VI"):
+            try:
+                st = seafreeze_ices.seafreeze_state(form, T, p)
+            except seafreeze_ices.MissingExtraError as exc:
+                raise NoModelError(f"ice {form} needs its optional model: {exc}") from exc
+            except PhasePathError as exc:
+                raise NoModelError(str(exc)) from exc
+            model = self.SEAFREEZE_MODEL.format(form=form)
+            return StatePoint(T, p, "solid", form, h=st.h, s=st.s, rho=st.rho, model=model)
         if form != "Ih":
             what = f"ice {form}" if form else "the high-pressure ice"
             raise NoModelError(f"phasepath has no published model of {what}")
@@ -160,8 +203,11 @@ class DryIce(SolidModel):
 
 # -- latent heats -------------------------------------------------------------------------------
 def _involved(before: str, after: str) -> tuple[str, str] | None:
-    """The (lost, gained) single phases of a transition between phases or mixtures."""
+    """The (lost, gained) single phases of a transition between phases or mixtures; between two
+    mixtures at the triple point, the liquid and the solid (the latent heat of fusion)."""
     b, a = set(before.split("+")), set(after.split("+"))
+    if len(a) == 2 and len(b) == 2 and {"solid", "liquid"} <= a | b:
+        return ("liquid", "solid") if "solid" in a - b or "liquid" in b - a else ("solid", "liquid")
     lost, gained = b - a, a - b
     if len(lost) == 1 and len(gained) == 1:
         return next(iter(lost)), next(iter(gained))
@@ -185,6 +231,14 @@ class EnthalpyDifference:
         before: tuple[str, str | None],
         after: tuple[str, str | None],
     ) -> LatentHeat:
+        if before[0] == after[0] == "solid":  # one ice to another
+            try:
+                a = phase_state(sub, T, p, "solid", before[1])
+                b = phase_state(sub, T, p, "solid", after[1])
+            except NoModelError as exc:
+                return LatentHeat(None, None, str(exc))
+            assert a.h is not None and b.h is not None
+            return LatentHeat(abs(b.h - a.h), f"{b.model} minus {a.model}")
         pair = _involved(before[0], after[0])
         if pair is None:
             return LatentHeat(None, None, "no single pair of phases to take a latent heat between")

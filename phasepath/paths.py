@@ -1,12 +1,13 @@
-"""Paths of legs: the states along a curved leg, and the line a route draws in each view.
+"""Paths of legs: the line a route draws on the diagram, in each view.
 
-A curved leg (constant v, h or s) is followed through the states the equation of state gives
-along its moving coordinate: the pressure of a constant-enthalpy or constant-entropy leg, the
-temperature of a constant-volume leg (:func:`trace`). :func:`route_line` turns an analysed
-route into the points drawn for it: an isobar or an isotherm straight between its corners and
-crossings; a curved leg through its states, with its crossings put in their place, and along the
-boundary's own nodes wherever two neighbouring points lie on the same two-phase boundary (so the
-drawn line runs along the saturation curve there instead of cutting across it).
+:func:`route_line` turns an analysed route into the points drawn for it: an isobar or an
+isotherm straight between its corners and crossings; a curved leg (constant v, h or s) through
+states sampled along its moving coordinate for the drawing only (the pressure of a
+constant-enthalpy or constant-entropy leg, the temperature of a constant-volume leg), with its
+crossings and the states its flags were read from put in their place, and along the boundary's
+own nodes wherever two neighbouring points lie on the same two-phase boundary (so the drawn line
+runs along the saturation curve there instead of cutting across it). Crossings are never found
+here: the analyser finds them by root-finding (:mod:`phasepath.curved`).
 
 :func:`route_path` gives the route's path in any of the three views (P–T, p–h, T–s; see
 :mod:`phasepath.views`): on p–h and T–s every leg is followed through its states, an isobar
@@ -35,60 +36,53 @@ if TYPE_CHECKING:  # pragma: no cover
     from .substances import Substance
 
 __all__ = [
-    "trace",
     "route_line",
     "leg_line",
     "as_arrays",
+    "DRAW_SAMPLES",
     "route_path",
     "route_states",
     "leg_states",
     "view_arrays",
 ]
 
-_SAMPLES = 24  # states sampled along a curved leg before refining each change of phase
-_REL = 1e-12  # relative width of the bracket at which a change of phase is located
+#: States sampled along a curved leg for drawing it (not for finding its crossings).
+DRAW_SAMPLES = 24
 
 
-def trace(
-    state_at: Callable[[float], StatePoint],
-    x0: float,
-    x1: float,
-    geometric: bool,
-    first: StatePoint | None = None,
-) -> tuple[list[StatePoint], list[tuple[StatePoint, StatePoint, int]]]:
-    """Sample a curved leg and locate every change of phase along it.
-
-    ``state_at(x)`` gives the state at the moving coordinate x. Returns the sampled states (for
-    drawing) and, for each change of phase, the states just before and just after it, bracketed
-    to 1e-12 relative in x by bisection on the phase, with the number of states evaluated.
-    ``first`` is the state the leg starts from, where it is known: at a corner on a boundary
-    (saturated vapor after "until fully vapor") ``state_at(x0)`` can land on the other side or on
-    a mixture with a fraction of 0 or 1, which would add a change of phase that is not there.
-    """
-    n = _SAMPLES
-    if geometric and x0 > 0 and x1 > 0:
-        xs = [x0 * (x1 / x0) ** (k / n) for k in range(n + 1)]
+def _drawn_states(sub: Substance, leg: LegSummary) -> list[StatePoint]:
+    """States along a curved leg for the drawing: samples in its moving coordinate (equal ratios
+    of pressure, equal steps of temperature) merged with the states the analyser recorded."""
+    kind = LEG_KINDS[leg.kind]
+    prop = kind.held
+    value = _states.held_value(leg.start, prop)
+    known = list(leg.path)
+    if value is None:
+        return known
+    sealed = prop == "v"
+    x0, x1 = (leg.start.T, leg.end.T) if sealed else (leg.start.p, leg.end.p)
+    n = DRAW_SAMPLES
+    if not sealed and x0 > 0 and x1 > 0:
+        xs = [x0 * (x1 / x0) ** (k / n) for k in range(1, n)]
     else:
-        xs = [x0 + (x1 - x0) * k / n for k in range(n + 1)]
-    xs[0], xs[-1] = x0, x1
-    states = [first if k == 0 and first is not None else state_at(x) for k, x in enumerate(xs)]
-    events: list[tuple[StatePoint, StatePoint, int]] = []
-    for k in range(n):
-        a, sa, b, sb = xs[k], states[k], xs[k + 1], states[k + 1]
-        while sa.key != sb.key:
-            lo, slo, hi, shi = a, sa, b, sb
-            count = 0
-            while abs(hi - lo) > _REL * max(abs(lo), abs(hi)):
-                m = 0.5 * (lo + hi)
-                sm = state_at(m)
-                count += 1
-                if sm.key == slo.key:
-                    lo, slo = m, sm
-                else:
-                    hi, shi = m, sm
-            events.append((slo, shi, count))
-            a, sa = hi, shi
-    return states, events
+        xs = [x0 + (x1 - x0) * k / n for k in range(1, n)]
+    drawn = []
+    for x in xs:
+        try:
+            drawn.append(
+                _states.flash_Tv(sub, x, value) if sealed else _states.flash_p(sub, x, prop, value)
+            )
+        except PhasePathError:  # drawing only: a state that cannot be drawn is left out
+            continue
+    out = known + drawn
+
+    def along(s: StatePoint) -> float:
+        x = s.T if sealed else s.p
+        return (x - x0) / (x1 - x0) if x1 != x0 else 0.0
+
+    first, last = out[0], known[-1] if known else out[-1]
+    middle = sorted((s for s in out if s is not first and s is not last), key=along)
+    return [first, *middle, last]
 
 
 # -- the drawn line -----------------------------------------------------------------------------
@@ -115,11 +109,11 @@ def leg_line(
     sub: Substance, leg: LegSummary, crossings: Sequence[Crossing]
 ) -> list[tuple[float, float]]:
     """The points of one leg (see the module's text)."""
-    states = list(leg.path)
+    kind = LEG_KINDS[leg.kind]
+    states = _drawn_states(sub, leg) if kind.curved else list(leg.path)
     if not states:
         return [(leg.start.T, leg.start.p), (leg.end.T, leg.end.p)]
     pts: list[tuple[float, float, _On]] = [(s.T, s.p, _mixtures(s.phase)) for s in states]
-    kind = LEG_KINDS[leg.kind]
     if kind.curved:
         along = 0 if kind.held == "v" else 1  # a sealed vessel moves in T, the others in p
         for c in crossings:
@@ -275,9 +269,9 @@ def leg_states(sub: Substance, leg: LegSummary, crossings: Sequence[Crossing]) -
 def _curved_states(
     sub: Substance, leg: LegSummary, crossings: Sequence[Crossing]
 ) -> list[StatePoint]:
-    """The traced states of a curved leg, with the state at each crossing put in its place
+    """The drawn states of a curved leg, with the state at each crossing put in its place
     (h, s and v are continuous along such a leg: one state per crossing)."""
-    pts = list(leg.path)
+    pts = _drawn_states(sub, leg)
     held = LEG_KINDS[leg.kind].held
     along = 0 if held == "v" else 1
     for c in crossings:

@@ -23,6 +23,7 @@ from typing import Any, Protocol
 from .errors import RouteError
 
 __all__ = [
+    "TOLERANCE",
     "PHASES",
     "MIXTURES",
     "BOUNDARY_KINDS",
@@ -43,9 +44,13 @@ __all__ = [
     "crossing_kind",
     "describe_change",
     "boundary_of",
+    "boundary_kind",
     "phase_text",
     "state_key",
 ]
+
+#: Guaranteed relative agreement between a crossing and its boundary (in pressure).
+TOLERANCE = 1e-9
 
 #: The four regions a single-phase state can be in.
 PHASES = ("solid", "liquid", "vapor", "supercritical")
@@ -63,6 +68,7 @@ CROSSING_KINDS = (
     "deposition",
     "supercritical-entry",
     "supercritical-exit",
+    "solid-transition",
 )
 
 
@@ -227,7 +233,9 @@ class Crossing:
     branches at very low pressure, where one floating-point step in ``T`` moves the pressure by
     more than that, ``T`` is the float closest to the exact crossing).
     ``latent_heat`` [J/kg] is the (positive) enthalpy of the transition, or None with the reason
-    in ``latent_heat_note``. ``method`` and ``evaluations`` say how it was found.
+    in ``latent_heat_note``. ``method`` and ``evaluations`` say how it was found. ``flag`` says
+    what to know about the curve crossed: it is flagged unreliable, or the crossing lies in the
+    gap between a published melting curve and the triple point ("" otherwise).
     """
 
     step: int
@@ -247,6 +255,7 @@ class Crossing:
     at_corner: bool = False
     detail: str = ""
     hazards: tuple[Hazard, ...] = ()
+    flag: str = ""
 
     @property
     def from_text(self) -> str:
@@ -346,10 +355,23 @@ def crossing_kind(from_phase: str, to_phase: str) -> str:
     'deposition'
     >>> crossing_kind("liquid+vapor", "supercritical")
     'supercritical-entry'
+    >>> crossing_kind("solid", "solid")  # one form of the solid to another (water's ices)
+    'solid-transition'
+    >>> crossing_kind("liquid+vapor", "solid+liquid")  # sealed water at its triple point
+    'freezing'
     """
+    if from_phase == to_phase == "solid":
+        return "solid-transition"
     if (from_phase, to_phase) in _KIND:
         return _KIND[(from_phase, to_phase)]
     b, a = set(from_phase.split("+")), set(to_phase.split("+"))
+    if len(a) == 2 and len(b) == 2 and "liquid" in a | b and "solid" in a | b:
+        # one mixture to another at the triple point: named for what the liquid does there
+        if "liquid" in b and "liquid" not in a:
+            return "deposition" if "solid" not in b else "freezing"
+        if "liquid" in a and "liquid" not in b:
+            return "melting"
+        return "freezing" if "solid" in a else "melting"
     if "solid" in a and "vapor" in a and "solid" not in b:
         return "deposition"  # solid now forms beside the vapor (dry-ice snow)
     if "solid" in b and "vapor" in b and "solid" not in a:
@@ -380,12 +402,22 @@ _BOUNDARY_OF = {
     "condensation": "vapor pressure",
     "sublimation": "sublimation",
     "deposition": "sublimation",
+    "solid-transition": "solid-solid",
 }
 
 
 def boundary_of(kind: str) -> str:
     """The boundary a crossing of this kind lies on ("vapor pressure" for a condensation)."""
     return _BOUNDARY_OF.get(kind, "critical point region")
+
+
+def boundary_kind(kind: str) -> str:
+    """The kind of boundary (:data:`BOUNDARY_KINDS`) a crossing of this kind lies on, or ""."""
+    return {
+        "melting": "melting",
+        "vapor pressure": "vaporization",
+        "sublimation": "sublimation",
+    }.get(_BOUNDARY_OF.get(kind, ""), "")
 
 
 _CHANGES = {
@@ -405,6 +437,15 @@ _CHANGES = {
     ("solid+liquid", "liquid"): "the last solid has melted",
     ("solid+liquid", "solid"): "the last liquid has frozen",
     ("solid", "solid+liquid"): "melting starts",
+    ("liquid+vapor", "solid+liquid"): (
+        "triple point: the liquid starts to freeze and the vapor is gone (latent heat shown: "
+        "fusion)"
+    ),
+    ("solid+liquid", "liquid+vapor"): "triple point: the last solid melts and vapor forms",
+    ("solid+liquid", "solid+vapor"): (
+        "triple point: the last liquid turns to solid and vapor (latent heat shown: fusion)"
+    ),
+    ("solid+vapor", "solid+liquid"): "triple point: the solid starts to melt; the vapor is gone",
 }
 
 

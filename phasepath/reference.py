@@ -1,17 +1,34 @@
 """Substances of the reference library: a CoolProp fluid with its published curves and models.
 
 :func:`build` makes the :class:`~phasepath.substances.Substance` of one CoolProp fluid: the vapor
-pressure from its reference equation of state, the melting line (IAPWS R14-08 for water; else
-CoolProp's, where it has one), the published sublimation curve where one exists
-(:data:`SUBLIMATION_CURVES`), and the solid model where phasepath has a published one
-(:data:`SOLID_MODELS`). Which substance gets which curve and model is data, in these two tables.
+pressure from its reference equation of state; the melting curve (IAPWS R14-08 for water; a
+published equation from :data:`phasepath.correlations.published_curves.MELTING_EQUATIONS` where
+phasepath carries one, which replaces CoolProp's line for helium and normal hydrogen; else
+CoolProp's own line, where it has one); the published sublimation curve where one exists
+(:data:`SUBLIMATION_CURVES`, with the equations of ``published_curves.SUBLIMATION_EQUATIONS``);
+and the solid model where phasepath has a published one (:data:`SOLID_MODELS`). Which substance
+gets which curve and model is data, in these tables; :func:`coverage` says it for one fluid.
 
-Junction rule at the triple point: every published sublimation curve is evaluated in reduced
-variables with the triple point of the fluid's equation of state as its reducing point, so that it
-ends exactly there (the published and EOS triple points differ by parts per million); water's ice
-Ih melting curve is shifted by the constant p_t(EOS) - p_t(R14-08) (0.002 Pa); CoolProp's
-melting lines are shifted by the constant that makes them pass through the EOS triple point, and
-flagged unreliable where that shift amounts to more than 0.05 K along the curve.
+Junction rules at the triple point
+----------------------------------
+* **Sublimation curves** are evaluated in reduced variables with the triple point of the fluid's
+  equation of state as their reducing point, so that they end exactly there (the published and
+  EOS triple points differ by parts per million; a curve without a triple point in its form is
+  reduced by its own end point). The curves listed in :data:`UNRELIABLE` (an end point far from
+  the EOS triple point, a doubtful slope) are flagged unreliable.
+* **Melting curves are used as published**: a melting curve is shifted to meet the EOS triple
+  point only where the shift is within the crossing tolerance (1e-9 of the triple-point
+  pressure), so that the shift can move no crossing. Otherwise the curve is used as it is and the
+  gap between it and the triple point is handled explicitly (see
+  :class:`~phasepath.substances.Substance`): where the curve starts above the triple-point
+  pressure, the solid-liquid boundary below its start is the isotherm at that start; where it
+  starts below the vapor-pressure curve, or above the triple-point temperature, the solid borders
+  the vapor along the vapor-pressure curve until the melting curve leaves it. A crossing in such
+  a gap carries that note. A curve whose start lies more than 0.05 K along it from the triple
+  point is flagged unreliable. No melting line is ever moved onto a point that is not a
+  solid-liquid-vapor triple point (CoolProp's helium "triple point" is the lambda point).
+* Every crossing of a curve flagged unreliable carries the flag, in its record (``flag``), in
+  the boundary name shown in every table and in the hazard texts.
 """
 
 from __future__ import annotations
@@ -19,19 +36,29 @@ from __future__ import annotations
 import math
 import re
 from collections.abc import Callable
+from dataclasses import dataclass
 
 from .boundaries import Boundary
-from .correlations import co2, sublimation_eos
+from .correlations import co2, published_curves, sublimation_eos, water_ice_phases
 from .correlations import water_iapws as w
 from .eos import EOS, fluid_info
 from .errors import PhasePathError
 from .models import DryIce, EnthalpyDifference, IceModels, NoSolidModel, SolidModel
-from .substances import NO_SUBLIMATION, Substance
+from .records import TOLERANCE
+from .substances import NO_MELTING, NO_SUBLIMATION, Substance
 
-__all__ = ["build", "SUBLIMATION_CURVES", "SOLID_MODELS"]
+__all__ = [
+    "build",
+    "coverage",
+    "Coverage",
+    "SUBLIMATION_CURVES",
+    "MELTING_CURVES",
+    "SOLID_MODELS",
+    "UNRELIABLE",
+]
 
-#: CoolProp name -> (published sublimation equation, its triple point (T [K], p [Pa]),
-#: lowest T [K], source id).
+#: CoolProp name -> (published sublimation equation, the triple point (T [K], p [Pa]) it is
+#: reduced by, lowest T [K], source id).
 SUBLIMATION_CURVES: dict[str, tuple[Callable[[float], float], tuple[float, float], float, str]] = {
     "Water": (w.sublimation_pressure_ice_ih, (w.T_TRIPLE, w.P_TRIPLE), 50.0, w.SOURCE),
     "CarbonDioxide": (
@@ -50,6 +77,19 @@ SUBLIMATION_CURVES: dict[str, tuple[Callable[[float], float], tuple[float, float
         for name, key in (("Nitrogen", "nitrogen"), ("Argon", "argon"), ("Methane", "methane"))
     },
 }
+for _name, (_fn, _tp, _lo, _hi, _src) in published_curves.SUBLIMATION_EQUATIONS.items():
+    _f = published_curves.FUNCTIONS[_fn]
+    # a form without a triple point is reduced by its own end point (its triple point)
+    SUBLIMATION_CURVES.setdefault(
+        _name, (_f, _tp if _tp is not None else (_hi, _f(_hi)), _lo, _src)
+    )
+
+#: CoolProp name -> (published melting equation, lowest T [K], highest T [K], source id), for the
+#: fluids whose melting curve is not CoolProp's own line (water has its five R14-08 branches).
+MELTING_CURVES: dict[str, tuple[Callable[[float], float], float, float, str]] = {
+    name: (published_curves.FUNCTIONS[fn], lo, hi, src)
+    for name, (fn, _tp, lo, hi, src) in published_curves.MELTING_EQUATIONS.items()
+}
 
 #: CoolProp name -> the published solid model phasepath has for it.
 SOLID_MODELS: dict[str, type[SolidModel]] = {"Water": IceModels, "CarbonDioxide": DryIce}
@@ -58,7 +98,49 @@ SOLID_MODELS: dict[str, type[SolidModel]] = {"Water": IceModels, "CarbonDioxide"
 #: melting line is not used).
 IAPWS_ICES = ("Water",)
 
-_TRIPLE_SHIFT_LIMIT = 0.05  # K: temperature offset above which a melting line is flagged unreliable
+#: (kind, CoolProp name) -> why the curve is flagged unreliable (published curves whose doubt is
+#: recorded with them; CoolProp melting lines are judged when built, see :func:`_melting_line`).
+UNRELIABLE: dict[tuple[str, str], str] = {
+    key: published_curves.FLAGS[key]
+    for key in (("sublimation", "Krypton"), ("sublimation", "Oxygen"), ("sublimation", "Hydrogen"))
+}
+
+_GAP_LIMIT = 0.05  # K along the curve: a melting curve starting further from T_t is unreliable
+_START_LIMIT = 0.05  # K: a melting line that starts further above T_t does not cover it
+
+
+@dataclass(frozen=True)
+class Coverage:
+    """What phasepath has for one fluid: the source id of each curve (None: not covered), its
+    solid model's name (None: none) and the flags on its curves."""
+
+    name: str
+    vaporization: str | None
+    melting: str | None
+    sublimation: str | None
+    solid_model: str | None
+    flags: tuple[str, ...]
+
+
+def coverage(sub: Substance) -> Coverage:
+    """The coverage of a substance, read from the curves and models it carries.
+
+    >>> import phasepath as pp
+    >>> c = coverage(pp.substance("CO2"))
+    >>> c.vaporization, c.melting, c.sublimation, c.solid_model
+    ('CoolProp', 'CoolProp', 'SpanWagner1996', 'dry ice')
+    """
+    sources = {b.kind: b.source for b in reversed(sub.boundaries)}
+    flags = tuple(b.note for b in sub.boundaries if not b.reliable and b.note)
+    solid = getattr(sub.solids, "name", None) if getattr(sub.solids, "sources", ()) else None
+    return Coverage(
+        sub.name,
+        sources.get("vaporization"),
+        sources.get("melting"),
+        sources.get("sublimation"),
+        solid,
+        flags,
+    )
 
 
 def build(name: str) -> Substance:
@@ -67,21 +149,30 @@ def build(name: str) -> Substance:
     notes: list[str] = []
     T_t, p_t, T_c, p_c = eos.T_triple, eos.p_triple, eos.T_crit, eos.p_crit
     vapor = Boundary("vaporization", "vapor pressure", T_t, T_c, "CoolProp", eos.p_sat, eos.T_sat)
-    sublimation = _sublimation(name, T_t, p_t)
+    sublimation = _sublimation(name, T_t, p_t, notes)
     if name in IAPWS_ICES:
-        melting = _water_melting(p_t)
+        melting = _water_melting()
         notes.append(
             "Melting and sublimation from IAPWS R14-08 (CoolProp's water melting line is not used)."
         )
+    elif name in MELTING_CURVES:
+        f, lo, hi, source = MELTING_CURVES[name]
+        melting = _melting_line(name, eos, f, None, lo, hi, source, notes)
+    elif eos.has_melting_line:
+        lo, hi, _, _ = eos.melting_range()
+        melting = _melting_line(name, eos, eos.p_melt, eos.T_melt, lo, hi, "CoolProp", notes)
     else:
-        melting = _coolprop_melting(eos, notes)
-        if not melting and not eos.has_melting_line:
-            notes.append(
-                "No published melting curve in the reference library: freezing under pressure "
-                "above the triple-point temperature is not detected."
-            )
-        if sublimation is None:
-            notes.append(f"Below the triple-point temperature: {NO_SUBLIMATION}.")
+        melting = []
+    if not melting:
+        notes.append(
+            "No published melting curve: freezing under pressure above the triple-point "
+            f"temperature is not detected; below it, above the triple-point pressure: {NO_MELTING}."
+        )
+    if sublimation is None:
+        notes.append(f"Below the triple-point temperature: {NO_SUBLIMATION}.")
+    flag = published_curves.FLAGS.get(("melting", name))
+    if flag and melting:
+        notes.append(f"Melting curve: {flag}.")
     solids = SOLID_MODELS.get(name)
     return Substance(
         name,
@@ -97,6 +188,7 @@ def build(name: str) -> Substance:
         solids=solids() if solids is not None else NoSolidModel(name),
         latent=EnthalpyDifference(),
         safety_group=_safety_group(name),
+        solid_boundaries=tuple(_ice_lines()) if name in IAPWS_ICES else (),
     )
 
 
@@ -106,12 +198,11 @@ def _safety_group(name: str) -> str | None:
     return group if re.fullmatch(r"[AB](1|2|2L|3)", group) else None
 
 
-def _sublimation(name: str, T_t: float, p_t: float) -> Boundary | None:
+def _sublimation(name: str, T_t: float, p_t: float, notes: list[str]) -> Boundary | None:
     """The published sublimation curve of a substance, ending at the EOS triple point, or None.
 
-    Every curve here has the form ln(p/p_t) = F(T/T_t); it is evaluated with the EOS triple
-    point (T_t, p_t) as the reducing point, so that it ends exactly there. The published and EOS
-    triple points differ by parts per million (argon: 0.2 mK, 1 Pa).
+    Every curve here is evaluated with the EOS triple point (T_t, p_t) as its reducing point,
+    so that it ends exactly there: p(T) = f(T T_pub/T_t) p_t/p_pub.
     """
     entry = SUBLIMATION_CURVES.get(name)
     if entry is None:
@@ -123,20 +214,27 @@ def _sublimation(name: str, T_t: float, p_t: float) -> Boundary | None:
         return f(min(T * t_scale, T_pub)) * p_scale
 
     form = "Ih" if name in IAPWS_ICES else None
+    reason = UNRELIABLE.get(("sublimation", name))
+    flag = published_curves.FLAGS.get(("sublimation", name), "")
+    if flag:
+        notes.append(f"Sublimation curve: {flag}.")
     return Boundary(
-        "sublimation", "sublimation", T_lo / t_scale, T_t, source, p_of_T, solid_form=form
+        "sublimation",
+        "sublimation" + (" (unreliable)" if reason else ""),
+        T_lo / t_scale,
+        T_t,
+        source,
+        p_of_T,
+        solid_form=form,
+        reliable=reason is None,
+        note=f"sublimation curve of {name}, flagged unreliable: {reason}" if reason else "",
     )
 
 
-def _water_melting(p_t: float) -> list[Boundary]:
-    """Water's five melting branches (IAPWS R14-08), ice Ih shifted to the EOS triple point."""
-    shift = p_t - w.P_TRIPLE
-
-    def ih(T: float) -> float:
-        return w.melting_pressure_ice_ih(T) + shift
-
+def _water_melting() -> list[Boundary]:
+    """Water's five melting branches (IAPWS R14-08), as published."""
     funcs = {
-        "Ih": ih,
+        "Ih": w.melting_pressure_ice_ih,
         "III": w.melting_pressure_ice_iii,
         "V": w.melting_pressure_ice_v,
         "VI": w.melting_pressure_ice_vi,
@@ -157,54 +255,87 @@ def _water_melting(p_t: float) -> list[Boundary]:
     ]
 
 
-def _coolprop_melting(eos: EOS, notes: list[str]) -> list[Boundary]:
-    """CoolProp's melting line as one branch that starts at the EOS triple point.
+def _ice_lines() -> list[Boundary]:
+    """Water's solid-solid boundaries (Dunaeva et al. 2010 through the triple points)."""
+    return [
+        Boundary(
+            "solid-solid",
+            f"ice {bd.low}-ice {bd.high}",
+            bd.T_min,
+            bd.T_max,
+            bd.source,
+            bd.pressure,
+            bd.temperature,
+            solid_form=bd.high,
+        )
+        for bd in water_ice_phases.BOUNDARIES
+    ]
 
-    Junction rule: the line is shifted by the constant Δp = p_t - p_m(T_t) so that it passes
-    through the EOS triple point. Where that shift amounts to more than 0.05 K along the curve
-    (|Δp| / (dp_m/dT) at T_t) the branch is flagged unreliable.
+
+def _melting_line(
+    name: str,
+    eos: EOS,
+    f: Callable[[float], float],
+    inverse: Callable[[float], float] | None,
+    T_lo: float,
+    T_hi: float,
+    source: str,
+    notes: list[str],
+) -> list[Boundary]:
+    """One melting branch from its lowest temperature at or above the EOS triple point.
+
+    Used as published unless the shift to meet the EOS triple point is within the crossing
+    tolerance (then shifted, moving no crossing); flagged unreliable where its start lies more
+    than 0.05 K along the curve from the triple point.
     """
-    if not eos.has_melting_line:
-        return []
-    T_lo, T_hi, _, _ = eos.melting_range()
     T_t, p_t = eos.T_triple, eos.p_triple
-    T_lo = max(T_lo, T_t)
+    T0 = max(T_lo, T_t)
+    if T0 - T_t > _START_LIMIT:
+        notes.append(
+            f"The melting line of {name} starts at {T0:g} K, {T0 - T_t:.3g} K above the triple "
+            f"point: it is not used, so freezing under pressure is not detected."
+        )
+        return []
     try:
-        shift = p_t - eos.p_melt(T_t)
-        slope = (eos.p_melt(T_t + 0.01) - eos.p_melt(T_t)) / 0.01
+        p0 = f(T0)
+        slope = (f(T0 + 0.01) - p0) / 0.01
     except PhasePathError:
         notes.append(
-            f"CoolProp's melting line of {eos.name} cannot be evaluated at the triple point "
-            f"({T_t} K): it is not used, so freezing under pressure is not detected."
+            f"The melting line of {name} cannot be evaluated at {T0:g} K: it is not used, so "
+            "freezing under pressure is not detected."
         )
         return []
-    offset_K = abs(shift) / slope if slope > 0 else math.inf
-    reliable = offset_K <= _TRIPLE_SHIFT_LIMIT
-    note = (
-        f"CoolProp's melting line misses the triple point by {-shift:.4g} Pa; shifted to meet it."
-    )
-    if not reliable:
-        notes.append(
-            f"The melting line of {eos.name} misses the triple point by {abs(shift):.3g} Pa "
-            f"(about {offset_K:.3g} K along the curve): treat melting results as unreliable."
+    shift = p_t - p0 if T0 == T_t and abs(p_t - p0) <= TOLERANCE * p_t else 0.0
+    if shift:
+        gap_K = 0.0
+    else:
+        gap_K = abs(p0 - p_t) / slope + (T0 - T_t) if slope > 0 else math.inf
+    reason = ""
+    if gap_K > _GAP_LIMIT and ("melting", name) not in published_curves.FLAGS:
+        reason = (
+            f"it starts {abs(p0 - p_t):.4g} Pa from the EOS triple point (about {gap_K:.3g} K "
+            f"along the curve)"
         )
+        notes.append(f"The melting line of {name} is flagged unreliable: {reason}.")
 
-    def p_of_T(T: float) -> float:
-        return eos.p_melt(T) + shift
+    p_of_T: Callable[[float], float] = f
+    T_of_p = inverse
+    if shift:
 
-    def T_of_p(p: float) -> float:
-        return eos.T_melt(p - shift)
+        def p_of_T(T: float) -> float:
+            return f(T) + shift
 
+        T_of_p = None if inverse is None else (lambda p: inverse(p - shift))
     return [
         Boundary(
             "melting",
-            "melting",
-            T_lo,
+            "melting" + (" (unreliable)" if reason else ""),
+            T0,
             T_hi,
-            "CoolProp",
+            source,
             p_of_T,
             T_of_p,
-            reliable=reliable,
-            note=note,
+            reliable=not reason,
+            note=f"melting curve of {name}, flagged unreliable: {reason}" if reason else "",
         )
     ]

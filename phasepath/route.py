@@ -4,10 +4,24 @@
 >>> route = pp.Route("CO2", T="-23 degC", p="20 bar").isotherm(p=1e5).isobar(T=180.0)
 >>> [(leg.kind, round(leg.T, 2), leg.p) for leg in route.legs]
 [('isotherm', 250.15, 100000.0), ('isobar', 180.0, 100000.0)]
+
+A start on the vapor-pressure curve with its vapor fraction (quality): saturated liquid at 10 bar.
+
+>>> start = pp.Route("N2", p="10 bar", quality=0.0).start.state
+>>> start.phase, start.vapor_fraction, round(start.T, 2)
+('liquid', 0.0, 103.75)
+
+Rule for a start exactly on a boundary (the same for every leg kind): a start given by its
+state (a quality, or a density that is exactly a saturated density) is that state; a start
+given as (T, p) that lies exactly on a boundary takes the phase of the side the first leg leaves
+into, read a hair along the leg's moving coordinate with the other held at the start (T on an
+isobar and a sealed vessel, p on an isotherm, a valve and a compressor).
 """
 
 from __future__ import annotations
 
+import math
+import numbers
 from typing import TYPE_CHECKING, Any
 
 from . import states
@@ -60,6 +74,10 @@ class Route:
     density : float, str or pint.Quantity, optional
         Start density [kg/m3] instead of ``p``: with ``T`` it fixes a state inside the
         two-phase region too (a cylinder's fill density).
+    quality : float, optional
+        Start vapor mass fraction, 0 (saturated liquid) to 1 (saturated vapor), with ``T`` or
+        ``p`` (not both): a start on the vapor-pressure curve, between the triple point and
+        the critical point.
     elevation : float, optional
         Site elevation [m]; a pressure written ``"ambient"`` is then the U.S. Standard
         Atmosphere 1976 pressure there (sea level if no elevation is given).
@@ -77,6 +95,7 @@ class Route:
         notes: str = "",
         density: object = None,
         elevation: float | None = None,
+        quality: object = None,
     ) -> None:
         self.substance = substance(substance_)
         self.title = str(title)
@@ -84,6 +103,10 @@ class Route:
         if elevation is not None:
             ambient_pressure(elevation)  # validates it
         self.elevation = elevation
+        if quality is not None:
+            self.start = self._quality_start(T, p, density, quality)
+            self.legs: list[Leg] = []
+            return
         T0 = _parse("T", T, "start temperature", sub=self.substance)
         if density is not None:
             if p is not None:
@@ -101,7 +124,49 @@ class Route:
             p0 = _parse("p", p, "start pressure", elevation, sub=self.substance)
             self._check(T0, p0, "start state", {"T": T, "p": p})
             self.start = Leg("start", T0, p0, {"T": T, "p": p})
-        self.legs: list[Leg] = []
+        self.legs = []
+
+    def _quality_start(self, T: object, p: object, density: object, quality: object) -> Leg:
+        """The start on the vapor-pressure curve at T or p with vapor mass fraction quality."""
+        sub = self.substance
+        if density is not None:
+            raise RouteError("give the start quality or the start density, not both")
+        if (T is None) == (p is None):
+            raise RouteError(
+                "a start with a quality needs its temperature T or its pressure p, not both: "
+                "the other follows from the vapor-pressure curve"
+            )
+        x = _fraction(quality, "start quality")
+        T_t, p_t = sub.triple
+        T_c, p_c = sub.critical
+        if sub.vapor is None:
+            raise RouteError(f"{sub.name} has no vapor-pressure curve: a quality needs one")
+        if T is not None:
+            T0 = _parse("T", T, "start temperature", sub=sub)
+            given: dict[str, Any] = {"T": T, "quality": quality}
+            if not T_t <= T0 < T_c:
+                raise OutOfRangeError(
+                    f"start temperature {T!r}: a quality is defined on the vapor-pressure curve, "
+                    f"from the triple point ({T_t:.6g} K) to below the critical point "
+                    f"({T_c:.6g} K)",
+                    value=T,
+                )
+            T_s, p_s = T0, sub.vapor.p_of_T(T0)
+        else:
+            p0 = _parse("p", p, "start pressure", self.elevation, sub=sub)
+            given = {"p": p, "quality": quality}
+            if not p_t <= p0 < p_c:
+                raise OutOfRangeError(
+                    f"start pressure {p!r}: a quality is defined on the vapor-pressure curve, "
+                    f"from the triple point ({p_t:.6g} Pa) to below the critical point "
+                    f"({p_c:.6g} Pa)",
+                    value=p,
+                )
+            T_s, p_s = sub.vapor.temperatures_at(p0)[0].root, p0
+        state = self._guard(
+            lambda: states.saturated_mixture(sub, T_s, p_s, x), "start state", given
+        )
+        return Leg("start", T_s, p_s, given, state=state)
 
     # -- building ------------------------------------------------------------------------------
     def isobar(self, T: object = None, *, until: str | None = None) -> Route:
@@ -134,7 +199,7 @@ class Route:
         where = f"leg {n} (isochore)"
         if (T is None) == (p is None):
             raise RouteError(f"{where}: give the end temperature T or the end pressure p, not both")
-        start = self.end_state()
+        start = self.end_state(self._towards("T", T, p))
         rho = self._need(start.rho, where, start)
         sub = self.substance
         if T is not None:
@@ -174,7 +239,7 @@ class Route:
 
     def _constant(self, kind: str, prop: str, p: object) -> Route:
         where = f"leg {len(self.legs) + 1} ({kind})"
-        start = self.end_state()
+        start = self.end_state(self._towards("p", None, p))
         value = self._need(start.h if prop == "h" else start.s, where, start)
         p1 = _parse("p", p, f"{where} pressure", self.elevation, sub=self.substance)
         given = {"p": p}
@@ -189,6 +254,21 @@ class Route:
         sub = self.substance
         end = self.end
         given = {"until": until}
+        text = until.strip().lower() if isinstance(until, str) else ""
+        if (
+            end.state is not None
+            and end.state.phase == "liquid+vapor"
+            and text
+            in (
+                "first liquid",
+                "first vapor",
+            )
+        ):
+            raise RouteError(
+                f"{where}: {until!r} cannot be reached: the leg starts in the two-phase region "
+                f"(vapor fraction {end.state.vapor_fraction:.4g}), where liquid and vapor are "
+                "both present already; use 'fully vapor' or 'fully liquid'"
+            )
         T, p, phase, event = _resolve_event(sub, kind, end.T, end.p, until, where)
         state = None
         if phase is not None:
@@ -197,6 +277,18 @@ class Route:
             )
         self._check(T, p, f"{where} end state", given)
         return self._add(Leg(kind, T, p, given, state=state, event=event))
+
+    def _towards(self, coord: str, T: object, p: object) -> tuple[str, float] | None:
+        """(moving coordinate, direction) of a leg about to start from the route's start."""
+        if self.legs or self.start.state is not None:
+            return None
+        try:
+            if T is not None:
+                return "T", _parse("T", T, "target", sub=self.substance) - self.start.T
+            target = _parse("p", p, "target", self.elevation, sub=self.substance)
+        except PhasePathError:
+            return None  # the leg itself reports the bad target
+        return coord, target - self.start.p
 
     def _need(self, value: float | None, where: str, start: StatePoint) -> float:
         if value is None:
@@ -213,8 +305,13 @@ class Route:
             raise exc.within(f"{where} ({_given_text(given)})") from exc
         return state
 
-    def end_state(self) -> StatePoint:
-        """The state at the last corner, with h, s and density where a model covers it."""
+    def end_state(self, towards: tuple[str, float] | None = None) -> StatePoint:
+        """The state at the last corner, with h, s and density where a model covers it.
+
+        A corner on a boundary takes the side the last leg arrives from; the route's start
+        (given as T and p) on a boundary takes the side the next leg leaves into: ``towards``
+        is its moving coordinate and the direction ("p", +1.0) (see the module's rule).
+        """
         leg = self.end
         if leg.state is not None:
             return leg.state
@@ -222,13 +319,44 @@ class Route:
         if self.legs:  # a corner on a boundary takes the side the leg arrives from
             T0, p0 = self.corners()[-2]
             T, p = T + (T0 - T) * _ARRIVE, p + (p0 - p) * _ARRIVE
+        elif towards is not None:  # the start takes the side the first leg leaves into
+            coord, sign = towards
+            if coord == "T":
+                T = T * (1 + math.copysign(_ARRIVE, sign))
+            else:
+                p = p * (1 + math.copysign(_ARRIVE, sign))
+            try:
+                self.substance.check_state(T, p)
+            except PhasePathError:
+                T, p = leg.T, leg.p
         phase, form = self.substance.classify(T, p)
-        return states.single_state(self.substance, leg.T, leg.p, phase, form)
+        state = states.single_state(self.substance, leg.T, leg.p, phase, form)
+        if towards is not None and (phase, form) != self.substance.classify(leg.T, leg.p):
+            # a start on a boundary: keep the side chosen, so the analysis starts there too
+            self._start_side = state
+        return state
 
     def _add(self, leg: Leg) -> Route:
         end = self.end
         n = len(self.legs) + 1
-        if abs(leg.T - end.T) <= _SAME * end.T and abs(leg.p - end.p) <= _SAME * end.p:
+        side: StatePoint | None = getattr(self, "_start_side", None)
+        if side is not None:
+            del self._start_side
+            if not self.legs and end is self.start:
+                self._check(leg.T, leg.p, f"leg {n} ({leg.kind}) end state", leg.given)
+                self.start = Leg("start", end.T, end.p, end.given, state=side)
+                end = self.start
+        changes = (
+            leg.state is not None
+            and end.state is not None
+            and (leg.state.key, leg.state.vapor_fraction)
+            != (end.state.key, end.state.vapor_fraction)
+        )  # e.g. "until fully vapor" from a two-phase start: same T and p, another state
+        if (
+            not changes
+            and abs(leg.T - end.T) <= _SAME * end.T
+            and abs(leg.p - end.p) <= _SAME * end.p
+        ):
             raise RouteError(
                 f"leg {n} ({leg.kind} to {_given_text(leg.given)}) has zero length: "
                 f"it ends where it starts (T = {end.T:.6g} K, p = {end.p:.6g} Pa)"
@@ -328,6 +456,7 @@ class Route:
             T=start.get("T"),
             p=start.get("p"),
             density=start.get("density"),
+            quality=start.get("quality"),
             elevation=data.get("elevation"),
             title=data.get("title", ""),
             notes=data.get("notes", ""),
@@ -350,6 +479,22 @@ class Route:
         from .routefile import save_route
 
         return save_route(self, path)
+
+
+def _fraction(value: object, where: str) -> float:
+    """A mass fraction from 0 to 1 (a plain number)."""
+    if isinstance(value, bool) or not isinstance(value, (numbers.Real, str)):
+        raise RouteError(f"{where} {value!r} is not a number from 0 to 1", value=value)
+    try:
+        x = float(value)
+    except ValueError:
+        raise RouteError(f"{where} {value!r} is not a number from 0 to 1", value=value) from None
+    if not (math.isfinite(x) and 0.0 <= x <= 1.0):
+        raise OutOfRangeError(
+            f"{where} {value!r} is outside 0 (saturated liquid) to 1 (saturated vapor)",
+            value=value,
+        )
+    return x
 
 
 def _given_text(given: dict[str, Any]) -> str:

@@ -69,7 +69,13 @@ _REQUIRED_TOP = ("format", "version", "substance", "start", "legs")
 _SCHEMA_PATH = Path(__file__).parent / "data" / "route.schema.json"
 _SUFFIX = {".json": "json", ".yaml": "yaml", ".yml": "yaml"}
 
-_EXAMPLE = {"T": "40 degC", "p": "300 bar", "density": "600 kg/m3", "until": "fully vapor"}
+_EXAMPLE = {
+    "T": "40 degC",
+    "p": "300 bar",
+    "density": "600 kg/m3",
+    "quality": 0.0,
+    "until": "fully vapor",
+}
 
 Path_ = str | os.PathLike
 
@@ -447,8 +453,15 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
         raise fail(
             f"expected a mapping with T and p (or T and density), not {_type_name(start)}", "start"
         )
-    _keys(start, ("T", "p", "density"), ("T",), ("start",), fail)
-    _one_of(start, ("p", "density"), ("start",), fail)
+    _keys(start, ("T", "p", "density", "quality"), (), ("start",), fail)
+    if "quality" in start:  # on the vapor-pressure curve: T or p with the vapor fraction
+        _one_of(start, ("T", "p"), ("start",), fail)
+        if "density" in start:
+            raise fail("give the quality or the density, not both", "start", "density")
+    else:
+        if "T" not in start:
+            raise fail("missing value: this field is required", "start", "T")
+        _one_of(start, ("p", "density"), ("start",), fail)
     for key in start:
         _value(start[key], key, ("start", key), fail)
     legs = data["legs"]
@@ -457,9 +470,10 @@ def _build(data: Any, lines: dict[tuple[Any, ...], int], source: str) -> Route:
     try:
         route = Route(
             data["substance"],
-            T=start["T"],
+            T=start.get("T"),
             p=start.get("p"),
             density=start.get("density"),
+            quality=start.get("quality"),
             elevation=elevation,
             title=data.get("title", ""),
             notes=data.get("notes", ""),
@@ -542,6 +556,14 @@ def _value(value: Any, name: str, path: tuple[Any, ...], fail: Any) -> None:
         )
     if isinstance(value, float) and not math.isfinite(value):
         raise fail(f"{value!r} is not a finite number", *path)
+    if name == "quality":
+        if isinstance(value, str) or not 0.0 <= value <= 1.0:
+            raise fail(
+                f"{value!r} is not a vapor mass fraction: a number from 0 (saturated liquid) "
+                "to 1 (saturated vapor)",
+                *path,
+            )
+        return
     if name == "p" and isinstance(value, str) and value.strip().lower() == "ambient":
         return
     dimension = {"T": "temperature", "p": "pressure", "density": "density"}[name]

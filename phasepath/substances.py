@@ -25,14 +25,19 @@ from typing import Any
 
 from . import bibliography
 from .boundaries import Boundary
-from .errors import NonFiniteError, OutOfRangeError
+from .errors import NonFiniteError, OutOfRangeError, PhasePathError
 from .records import PHASES
+from .rootfind import find_root
 
-__all__ = ["Substance", "PHASES", "NO_SUBLIMATION"]
+__all__ = ["Substance", "PHASES", "NO_SUBLIMATION", "NO_MELTING"]
 
 #: What the diagram and the analyser say below the triple point of a fluid with no published
 #: sublimation curve.
 NO_SUBLIMATION = "solid or vapor: no published sublimation curve"
+#: What they say below the triple-point temperature and above the triple-point pressure of a
+#: fluid with no published melting curve.
+NO_MELTING = "solid or liquid: no published melting curve"
+_JUNCTION_REACH = 0.05  # K: a melting branch starting this close to T_t joins the triple point
 
 
 class Substance:
@@ -56,6 +61,9 @@ class Substance:
         Melting branches (water: ice Ih, III, V, VI, VII).
     sublimation : Boundary or None
         The sublimation curve, or None where no published curve exists.
+    solid_boundaries : tuple of Boundary
+        Boundaries between two forms of the solid (water's ices: Dunaeva et al. 2010), kind
+        "solid-solid"; crossed by isobars and isotherms as solid-transition crossings.
     fluid : object
         The fluid model: the reference equation of state (:class:`phasepath.eos.EOS`), or a
         model that says why there is none (:class:`phasepath.models.NoFluidModel`).
@@ -90,6 +98,7 @@ class Substance:
         T_min: float | None = None,
         source_data: Any = None,
         safety_group: str | None = None,
+        solid_boundaries: tuple[Boundary, ...] = (),
     ) -> None:
         self.name = name
         self.triple = (float(triple[0]), float(triple[1]))
@@ -105,12 +114,14 @@ class Substance:
         self.latent = latent
         self.source_data = source_data
         self.safety_group = safety_group
+        self.solid_boundaries = tuple(solid_boundaries)
         if T_min is None:
             T_min = sublimation.T_min if sublimation is not None else self.triple[0]
         self.T_min = float(T_min)
         self._melt_top = max(
             (b.T_max for b in self.melting if b.solid_side == "above"), default=None
         )
+        self._melt_start, self._liquid_from = self._junction()
 
     def __repr__(self) -> str:
         return f"<Substance {self.name}>"
@@ -163,18 +174,126 @@ class Substance:
         branches do not quite meet; the analyser tests each of them.
         """
         ts = {self.triple[0], self.critical[0]}
-        for b in self.boundaries:
+        for b in (*self.boundaries, *self.solid_boundaries):
             ts.update((b.T_min, b.T_max))
         return tuple(sorted(ts))
 
     def melting_temperature(self, p: float) -> tuple[float, str | None] | None:
-        """Highest melting temperature at pressure p [Pa] and the solid's form, or None."""
+        """Highest melting temperature at pressure p [Pa] and the solid's form, or None.
+
+        Between the triple-point pressure and the start of a melting curve that does not pass
+        through the triple point (see :meth:`melting_gap`), the temperature where the curve
+        starts: there the solid-liquid boundary is the isotherm at the curve's start, or, below
+        the vapor-pressure curve, the solid meets the vapor directly.
+        """
         best: tuple[float, str | None] | None = None
         for b in self.melting:
             for r in b.temperatures_at(p):
                 if best is None or r.root > best[0]:
                     best = (r.root, b.solid_form)
+        start = self._melt_start
+        if best is None and start is not None and self.triple[1] < p <= start[1]:
+            best = (start[0], start[2])
         return best
+
+    def melting_gap(self) -> str:
+        """How the melting curve meets the triple point, in words ("" where it passes through).
+
+        >>> import phasepath as pp
+        >>> pp.substance("water").melting_gap()  # doctest: +ELLIPSIS
+        'the published melting curve starts at 273.16 K and 611.657 Pa...'
+        """
+        start = self._melt_start
+        if start is None:
+            return ""
+        T0, p0, _ = start
+        T_t, p_t = self.triple
+        if T0 == T_t and p0 == p_t:
+            return ""
+        text = (
+            f"the published melting curve starts at {T0:.6g} K and {p0:.6g} Pa, not at the "
+            f"triple point of the equation of state ({T_t:.6g} K, {p_t:.6g} Pa)"
+        )
+        if self._liquid_from > T_t:
+            text += (
+                f"; from the triple point to {self._liquid_from - T_t:.3g} K above it the solid "
+                "meets the vapor along the vapor-pressure curve"
+            )
+        if p0 > p_t and T0 == T_t:
+            text += (
+                f"; between {p_t:.6g} Pa and {p0:.6g} Pa the solid-liquid boundary is the "
+                f"isotherm T = {T0:.6g} K"
+            )
+        return text
+
+    @property
+    def melting_start(self) -> tuple[float, float, str | None] | None:
+        """(T [K], p [Pa], form) where the melting curve at the triple point starts, or None."""
+        return self._melt_start
+
+    @property
+    def liquid_from(self) -> float:
+        """The temperature [K] from which liquid exists above the vapor-pressure curve (the
+        triple point, or higher where a melting curve starts below or after it)."""
+        return self._liquid_from
+
+    def in_solid_strip(self, T: float) -> bool:
+        """True for a temperature from the triple point up to where a melting curve that starts
+        below the vapor-pressure curve (or above the triple-point temperature) rises through it:
+        there no liquid exists, and the solid meets the vapor on the vapor-pressure curve."""
+        return self.triple[0] <= T < self._liquid_from
+
+    def in_melting_gap(self, T: float, p: float) -> bool:
+        """True where (T, p) lies on the explicit part of the solid boundary between a published
+        melting curve and the triple point (see :meth:`melting_gap`), within 1e-9."""
+        start = self._melt_start
+        if start is None:
+            return False
+        T0, p0, _ = start
+        T_t, p_t = self.triple
+        tol = 1e-9
+        if abs(T - T0) <= tol * T0 and p_t * (1 - tol) <= p <= p0 * (1 + tol) and p0 > p_t:
+            return True  # the isotherm below the curve's start
+        return T_t * (1 - tol) <= T <= self._liquid_from * (1 + tol) and self._liquid_from > T_t
+
+    def _junction(self) -> tuple[tuple[float, float, str | None] | None, float]:
+        """(T0, p0, form) where the lowest melting branch with solid above starts, and the
+        temperature from which liquid exists above the vapor-pressure curve."""
+        T_t, p_t = self.triple
+        if not (math.isfinite(T_t) and math.isfinite(p_t)) or self.vapor is None:
+            return None, T_t
+        near = _JUNCTION_REACH
+        for b in self.melting:  # a branch with the solid below it ending at the triple point
+            if b.solid_side == "below" and abs(b.T_max - T_t) <= near:
+                p0 = b.p_of_T(b.T_max)
+                return ((b.T_max, p0, b.solid_form) if p0 >= p_t else None), T_t
+        above = [b for b in self.melting if b.solid_side == "above" and abs(b.T_min - T_t) <= near]
+        if not above:
+            return None, T_t
+        b = min(above, key=lambda b: b.T_min)
+        T0 = b.T_min
+        try:
+            p0 = b.p_of_T(T0)
+            p_floor = self.vapor.p_of_T(T0) if self.vapor.T_min <= T0 <= self.vapor.T_max else p_t
+        except PhasePathError:  # pragma: no cover - a curve that cannot be evaluated at its start
+            return None, T_t
+        if p0 >= p_floor:
+            return (T0, p0, b.solid_form), T0
+        # the curve starts below the vapor-pressure curve: liquid exists only from where it
+        # rises through it
+        vapor = self.vapor
+
+        def gap(T: float) -> float:
+            return b.p_of_T(T) - vapor.p_of_T(T)
+
+        hi = min(b.T_max, vapor.T_max)
+        try:
+            T_x = find_root(
+                gap, T0, hi, what=f"the melting curve of {self.name} meeting its vapor pressure"
+            ).root
+        except PhasePathError:  # pragma: no cover - a melting curve under the vapor curve
+            return None, T_t
+        return (T0, p0, b.solid_form), T_x
 
     def sources(self) -> list[str]:
         """Full citations of the sources behind this substance's curves and models."""
@@ -197,6 +316,8 @@ class Substance:
     def check_state(self, T: float, p: float) -> None:
         """Raise a phasepath error unless (T, p) lies where the models are valid."""
         for v, what in ((T, "T"), (p, "p")):
+            if type(v) is float and v - v == 0.0:  # the common case: a finite float
+                continue
             if not isinstance(v, numbers.Real) or isinstance(v, bool) or not math.isfinite(v):
                 raise NonFiniteError(
                     f"{what} = {v!r} is not a finite number ({self.name}: "
@@ -233,6 +354,12 @@ class Substance:
                 f"T = {T!r} K is below the lowest temperature the models of {self.name} cover: "
                 f"valid {self.T_min:g} K to {self.T_max:g} K"
             )
+        if not self.melting and T < self.triple[0] and p > self.triple[1]:
+            raise OutOfRangeError(
+                f"T = {T!r} K, p = {p!r} Pa lies below the triple-point temperature of "
+                f"{self.name} ({self.triple[0]:g} K) and above its triple-point pressure "
+                f"({self.triple[1]:.6g} Pa): {NO_MELTING}"
+            )
         if self._melt_top is not None and T > self._melt_top:
             top = max(self.melting, key=lambda b: b.T_max)
             p_top = top.p_of_T(top.T_max)
@@ -264,14 +391,35 @@ class Substance:
             for b in self.melting:
                 if b.solid_side == "below" and b.T_min <= T <= b.T_max:
                     if p <= b.p_of_T(T):
-                        return "solid", b.solid_form
-                    solid = self._solid_above(T, p)
-                    return ("solid", solid) if solid is not False else ("liquid", None)
+                        return "solid", self.form_of_solid(T, p, b.solid_form)
+                    above = self._solid_above(T, p)
+                    if above is None:
+                        return "liquid", None
+                    return "solid", self.form_of_solid(T, p, above.solid_form)
             return "solid", self.solids.form_at(T, p)
-        solid = self._solid_above(T, p)
-        if solid is not False:
-            return "solid", solid
+        vapor = self.vapor
+        T_c, p_c = self.critical
+        if vapor is not None and not T > T_c and p <= vapor.p_of_T(T):
+            return "vapor", None  # below the vapor-pressure curve, whatever a melting line says
+        if T < self._liquid_from:  # the gap below a melting curve's start: no liquid here
+            start = self._melt_start
+            return "solid", self.solids.form_at(T, p) if start is None else start[2]
+        above = self._solid_above(T, p)
+        if above is not None:
+            return "solid", self.form_of_solid(T, p, above.solid_form)
+        if T > T_c:
+            return ("supercritical" if p > p_c else "vapor"), None
+        if vapor is not None:  # above the vapor-pressure curve (checked above)
+            return "liquid", None
         return self.fluid_phase(T, p), None
+
+    def form_of_solid(self, T: float, p: float, branch_form: str | None) -> str | None:
+        """The form of the solid at (T, p): the solid model's one naming function where it names
+        forms (water's ices), else the melting branch's."""
+        if branch_form is None:
+            return self.solids.form_at(T, p)
+        named = self.solids.form_at(T, p)
+        return named if named is not None else branch_form
 
     def fluid_phase(self, T: float, p: float) -> str:
         """The fluid region of (T, p), the solid left aside: "liquid", "vapor" or
@@ -284,9 +432,9 @@ class Substance:
             return "liquid" if p > self.vapor.p_of_T(T) else "vapor"
         return "liquid" if p > self.triple[1] else "vapor"
 
-    def _solid_above(self, T: float, p: float) -> str | None | bool:
-        """The form of the solid above a melting branch at (T, p) (None: unnamed), else False."""
+    def _solid_above(self, T: float, p: float) -> Boundary | None:
+        """The melting branch (T, p) lies above on its solid side, else None."""
         for b in self.melting:
             if b.solid_side == "above" and b.T_min <= T <= b.T_max and p > b.p_of_T(T):
-                return b.solid_form
-        return False
+                return b
+        return None

@@ -64,21 +64,17 @@ _ACCEPTED = {
     "pressure": "a number [Pa] or text with an absolute pressure unit, such as '60 bar'",
     "density": "a number [kg/m3] or text with a density unit, such as '750 kg/m3'",
     "elevation": "a number [m] or text in metres, such as '1600 m'",
+    "fraction": "a number from 0 (saturated liquid) to 1 (saturated vapor)",
 }
 # Start values an axis can vary: axis name -> (key of the route's start data, quantity).
 _START_AXES = {
     "start_T": ("T", "temperature"),
     "start_p": ("p", "pressure"),
     "start_density": ("density", "density"),
+    "start_quality": ("quality", "fraction"),
 }
 # Axes that will come with later route features: axis name -> why it is refused for now.
-# A start quality goes here until routes take one; then it becomes a row of _START_AXES.
-_PLANNED_AXES = {
-    "start_quality": (
-        "routes do not take a start quality (vapor mass fraction) yet: they start from "
-        "(T, p) or from (T, density); vary start_density to sweep through the two-phase region"
-    ),
-}
+_PLANNED_AXES: dict[str, str] = {}
 _LEG_AXIS = re.compile(r"^leg([1-9][0-9]*)_(T|p)$")
 _LEG_QUANTITY = {"T": "temperature", "p": "pressure"}
 _METRES = re.compile(r"^\s*([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(m)?\s*$")
@@ -151,11 +147,11 @@ def sweep(
         Show a progress bar.
     **axes : sequence of float or str
         Each keyword names a value of the plan and gives the values it takes:
-        ``start_T`` [K], ``start_p`` [Pa], ``start_density`` [kg/m3] (whichever of p or
-        density the plan starts from), ``elevation`` [m], and ``leg<N>_T`` [K] or
-        ``leg<N>_p`` [Pa], the target of leg N (1-based) as the plan gives it (an isobar's T,
-        an isotherm's p, ...). Numbers are SI; text carries its unit (``"20 degC"``,
-        ``"60 bar"``). ``start_quality`` is reserved for when routes take a quality start.
+        ``start_T`` [K], ``start_p`` [Pa], ``start_density`` [kg/m3], ``start_quality``
+        (vapor mass fraction, 0 to 1; whichever the plan starts from), ``elevation`` [m], and
+        ``leg<N>_T`` [K] or ``leg<N>_p`` [Pa], the target of leg N (1-based) as the plan gives
+        it (an isobar's T, an isotherm's p, ...). Numbers are SI; text carries its unit
+        (``"20 degC"``, ``"60 bar"``).
 
     Returns
     -------
@@ -318,12 +314,15 @@ def _axis(name: str, values: Any, plan: dict[str, Any]) -> _Axis:
     if name in _START_AXES:
         key, quantity = _START_AXES[name]
         if start.get(key) is None:
-            other = "density" if key == "p" else "p"
+            has = " and ".join(
+                k for k in ("T", "p", "density", "quality") if start.get(k) is not None
+            )
+            how = f"T or p and {key}" if key == "quality" else f"T and {key}"
             raise SweepAxisError(
                 name,
                 values,
-                f"the plan starts from T and {other}, so it has no start {key} to vary "
-                f"(start the plan from T and {key} to sweep it)",
+                f"the plan starts from {has}, so it has no start {key} to vary "
+                f"(start the plan from {how} to sweep it)",
                 ", ".join(known),
             )
         return _Axis(name, quantity, "start", key)
@@ -371,7 +370,11 @@ def _value(axis: _Axis, v: Any) -> float:
         x = float(v)
         if not math.isfinite(x):
             raise SweepAxisError(axis.name, v, "is not a finite number", accepted)
+        if axis.quantity == "fraction" and not 0.0 <= x <= 1.0:
+            raise SweepAxisError(axis.name, v, "is outside 0 to 1", accepted)
         return x
+    if axis.quantity == "fraction":
+        raise SweepAxisError(axis.name, v, "is not a number", accepted)
     if axis.quantity == "elevation":
         m = _METRES.match(v) if isinstance(v, str) else None
         if m is None:

@@ -72,6 +72,7 @@ _INVERSE = {
     "deposition": "sublimation",
     "supercritical-entry": "supercritical-exit",
     "supercritical-exit": "supercritical-entry",
+    "solid-transition": "solid-transition",
 }
 _SCAN = 120  # points per leg in the independent scan
 _NUDGE = 1e-7  # relative step beside a crossing where its two phases are read
@@ -157,7 +158,7 @@ def _fraction(
 def _check_on_boundary(sub: pp.Substance, route: pp.Route, c: pp.Crossing) -> None:
     T_t, p_t = sub.triple
     T_c, p_c = sub.critical
-    branches = {b.label: b for b in sub.boundaries}
+    branches = {b.label: b for b in (*sub.boundaries, *sub.solid_boundaries)}
     if c.at_corner or c.boundary == "corner":
         assert any(c.T == T and c.p == p for T, p in route.corners()), c
     elif c.boundary in branches:

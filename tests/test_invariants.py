@@ -101,7 +101,7 @@ def routes(draw, max_legs: int = 3):
 
 
 def _boundary(sub, label):
-    return next((b for b in sub.boundaries if b.label == label), None)
+    return next((b for b in (*sub.boundaries, *sub.solid_boundaries) if b.label == label), None)
 
 
 def _key(c):

@@ -133,14 +133,19 @@ def test_water_branch_ranges_follow_r14_08(label):
 
 
 def test_water_ice_ih_curve_meets_the_eos_triple_point():
-    """Junction rule: ice Ih melting, sublimation and vapor pressure meet at the EOS triple point
-    (phasepath's documented rule; 611.655 Pa is the IAPWS-95 triple-point pressure, from memory)."""
+    """Junction rule: sublimation and vapor pressure meet at the EOS triple point (phasepath's
+    documented rule; 611.655 Pa is the IAPWS-95 triple-point pressure, from memory); the ice Ih
+    melting curve is R14-08 as published, 611.657 Pa at 273.16 K (R14-08, Table 1): the shift
+    of 0.0023 Pa onto the EOS point would exceed the crossing tolerance (changed on purpose)."""
     water = pp.substance("water")
     T_t, p_t = water.triple
     assert p_t == pytest.approx(611.655, abs=1e-3)
-    for label in ("melting (ice Ih)", "sublimation"):
-        assert _water_boundary(label).p_of_T(T_t) == pytest.approx(p_t, rel=1e-12)
+    assert _water_boundary("sublimation").p_of_T(T_t) == pytest.approx(p_t, rel=1e-12)
+    assert _water_boundary("melting (ice Ih)").p_of_T(T_t) == pytest.approx(611.657, rel=1e-12)
     assert water.vapor.p_of_T(T_t) == pytest.approx(p_t, rel=1e-12)
+    # the gap of 0.0023 Pa is the isotherm T = T_t: solid to its left, liquid to its right
+    assert water.classify(T_t - 1e-9, 611.656) == ("solid", "Ih")
+    assert water.phase(T_t, 611.656) == "liquid"
 
 
 # -- Fixed points of the reference equations ---------------------------------------------------

@@ -350,10 +350,21 @@ def test_co2_fusion_latent_heat_at_the_triple_point():
 
 
 def test_no_latent_heat_without_a_solid_model_says_why():
+    report = pp.Route("N2", T=70.0, p=1e6).isotherm(p=100 * MPa).analyze()
+    (freeze,) = report.crossings
+    assert freeze.kind == "freezing"
+    assert freeze.latent_heat is None and "solid Nitrogen" in freeze.latent_heat_note
+    # ice III: a model from the optional extra (changed on purpose: seafreeze, when installed),
+    # else the reason names the extra to install
     report = pp.Route("water", T=253.0, p=1e5).isotherm(p=300 * MPa).analyze()
     freeze = report.crossings[1]
     assert freeze.to_form == "III"
-    assert freeze.latent_heat is None and "III" in freeze.latent_heat_note
+    try:
+        import seafreeze  # noqa: F401
+    except ImportError:
+        assert freeze.latent_heat is None and "phasepath[ices]" in freeze.latent_heat_note
+    else:
+        assert freeze.latent_heat is not None and "Journaux" in freeze.latent_heat_model
 
 
 # -- input at the edges ------------------------------------------------------------------------

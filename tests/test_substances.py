@@ -93,15 +93,32 @@ def test_special_points_and_limits_are_consistent(name):
         assert b.T_min < b.T_max and b.source
 
 
-@pytest.mark.parametrize("name", ["water", "CO2", "N2", "Ar", "CH4"])
-def test_melting_curve_starts_at_the_triple_point(name):
-    """Junction rule (documented in phasepath.reference): the lowest melting
-    branch passes through the EOS triple point."""
+# Melting curves at the triple point, as published (changed on purpose from the old junction rule,
+# which shifted every line onto the EOS triple point): R14-08 gives 611.657 Pa at 273.16 K (its
+# Table 1); CoolProp 8.0.0's own lines are read through its low-level melting_line call.
+MELTING_AT_TRIPLE = [("water", 611.657, "IAPWS R14-08, Table 1")] + [
+    (name, None, "CoolProp 8.0.0 melting_line") for name in ("CO2", "N2", "Ar", "CH4")
+]
+
+
+@pytest.mark.parametrize(
+    "name,p_pub,source", MELTING_AT_TRIPLE, ids=[m[0] for m in MELTING_AT_TRIPLE]
+)
+def test_melting_curve_at_the_triple_point_is_the_published_curve(name, p_pub, source):
+    """Junction rule (documented in phasepath.reference): a melting curve is used as published
+    where the shift onto the EOS triple point would exceed the crossing tolerance, and the gap is
+    described by Substance.melting_gap()."""
+    import CoolProp.CoolProp as CP
+
     sub = pp.substance(name)
     T_t, p_t = sub.triple
     at_triple = [b for b in sub.melting if b.T_min <= T_t <= b.T_max]
     assert at_triple, f"no melting branch of {sub.name} covers T_t = {T_t} K"
-    assert any(b.p_of_T(T_t) == pytest.approx(p_t, rel=1e-9) for b in at_triple)
+    if p_pub is None:
+        p_pub = CP.AbstractState("HEOS", sub.name).melting_line(CP.iP, CP.iT, T_t)
+    assert any(b.p_of_T(T_t) == pytest.approx(p_pub, rel=1e-12) for b in at_triple), source
+    assert abs(p_pub - p_t) > 1e-9 * p_t  # too far to shift within the crossing tolerance
+    assert f"{p_t:.6g} Pa" in sub.melting_gap()
 
 
 def test_out_of_range_states_name_value_substance_and_range():
@@ -176,13 +193,17 @@ REGIONS = [
     ("CH4", 150.0, 10e6, "liquid", None, "T < Tc, p > pc"),
     ("CH4", 100.0, 100e6, "solid", None, "above the melting pressure at 100 K (~38 MPa)"),
     # ammonia: Tillner-Roth et al. 1993 EOS in CoolProp (Tt 195.495 K, Tc 405.56 K, pc 11.363 MPa,
-    # normal boiling point 239.8 K; from memory). No melting curve: fluid at any pressure.
+    # normal boiling point 239.8 K; from memory). Melting curve of Gao et al. (2023): 372 MPa at
+    # 250 K (their equation, phasepath's implementation checked in test_published_curves).
     ("ammonia", 300.0, 101325.0, "vapor", None, "above the normal boiling point 239.8 K"),
     ("ammonia", 300.0, 2e6, "liquid", None, "above p_sat(300 K) = 1.06 MPa"),
     ("ammonia", 450.0, 20e6, "supercritical", None, "T > Tc, p > pc"),
     ("ammonia", 450.0, 5e6, "vapor", None, "T > Tc, p < pc"),
     ("ammonia", 350.0, 15e6, "liquid", None, "T < Tc, p > pc"),
-    ("ammonia", 250.0, 500e6, "liquid", None, "no melting curve: freezing is not detected"),
+    ("ammonia", 250.0, 500e6, "solid", None, "above the Gao 2023 melting curve (372 MPa)"),
+    ("ammonia", 250.0, 300e6, "liquid", None, "below the Gao 2023 melting curve (372 MPa)"),
+    # R-134a: no melting curve: fluid at any pressure above the triple-point temperature
+    ("R134a", 250.0, 50e6, "liquid", None, "no melting curve: freezing is not detected"),
 ]
 
 
@@ -224,13 +245,31 @@ def test_phase_below_the_triple_point(name, T, p, phase, why):
     assert sub.phase(T, p) == phase, why
 
 
-def test_ammonia_below_triple_point_is_refused_with_the_reason():
-    nh3 = pp.substance("ammonia")
-    assert nh3.melting == () and nh3.sublimation is None
+def test_below_triple_point_without_sublimation_is_refused_with_the_reason():
+    r134a = pp.substance("R134a")
+    assert r134a.melting == () and r134a.sublimation is None
+    T_t = r134a.triple[0]
     with pytest.raises(OutOfRangeError) as info:
-        nh3.phase(190.0, 101325.0)
-    assert NO_SUBLIMATION in str(info.value) and "190.0" in str(info.value)
-    assert any("melting" in n for n in nh3.notes)
+        r134a.phase(T_t - 5.0, 101325.0)
+    assert NO_SUBLIMATION in str(info.value) and str(T_t - 5.0) in str(info.value)
+    assert any("melting" in n for n in r134a.notes)
+
+
+def test_below_triple_point_without_melting_is_refused_above_the_triple_pressure():
+    """Hydrogen sulfide has a sublimation curve but no melting curve: below its triple-point
+    temperature the state is solid or vapor under the triple-point pressure, and refused above
+    it (solid or liquid: no published melting curve)."""
+    from phasepath.substances import NO_MELTING
+
+    h2s = pp.substance("H2S")
+    (T_t, p_t) = h2s.triple
+    assert h2s.melting == () and h2s.sublimation is not None
+    assert h2s.phase(T_t - 5.0, 0.9 * h2s.sublimation.p_of_T(T_t - 5.0)) == "vapor"
+    assert h2s.phase(T_t - 5.0, 0.5 * (h2s.sublimation.p_of_T(T_t - 5.0) + p_t)) == "solid"
+    with pytest.raises(OutOfRangeError) as info:
+        h2s.phase(T_t - 5.0, 2.0 * p_t)
+    assert NO_MELTING in str(info.value)
+    assert any(NO_MELTING in n for n in h2s.notes)
 
 
 @pytest.mark.parametrize("name", ["water", "CO2", "N2", "Ar", "CH4", "ammonia"])

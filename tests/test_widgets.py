@@ -517,9 +517,9 @@ def test_no_sublimation_strip_is_labelled() -> None:
     from phasepath.widgets.diagram import PhaseDiagram
 
     d = PhaseDiagram("K", "bar")
-    d.set_substance(pp.substance("ammonia"))
+    d.set_substance(pp.substance("R134a"))  # (ammonia has published curves now)
     assert list(d.strip_note.text) == [NO_SUBLIMATION]
-    assert float(d.strip_note.x[0]) < pp.substance("ammonia").triple[0]
+    assert float(d.strip_note.x[0]) < pp.substance("R134a").triple[0]
     assert "SOLID" not in list(d.regions.text)
     d.set_substance(pp.substance("CO2"))
     assert list(d.strip_note.text) == []
@@ -527,9 +527,9 @@ def test_no_sublimation_strip_is_labelled() -> None:
 
 
 def test_legend_lists_only_the_curves_drawn() -> None:
-    """Ammonia has neither a melting line in CoolProp nor a published sublimation curve (common
+    """R-134a has neither a melting line in CoolProp nor a published sublimation curve (common
     practice: only curves on the diagram appear in its legend); CO2 has all three."""
-    ammonia = pp.widgets.RoutePlanner("ammonia")
+    ammonia = pp.widgets.RoutePlanner("R134a")  # (ammonia has published curves now)
     assert "vapor pressure" in ammonia.legend.value
     assert "melting" not in ammonia.legend.value and "sublimation" not in ammonia.legend.value
     co2 = pp.widgets.RoutePlanner("CO2")

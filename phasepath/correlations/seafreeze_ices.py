@@ -50,6 +50,7 @@ __all__ = [
     "MissingExtraError",
     "SeafreezeState",
     "seafreeze_state",
+    "prefetch",
 ]
 
 SOURCES: dict[str, str] = {
@@ -154,9 +155,56 @@ def _number(name: str, value: object) -> float:
     return x
 
 
+_PREFETCHED: dict[tuple[str, float, float], tuple[float, float, float, float]] = {}
+_PREFETCH_MAX = 8192
+
+
+def prefetch(form: str, Ts: list[float], ps: list[float]) -> None:
+    """Evaluate many states of one form in a single seafreeze call (about a tenth of the time
+    of calling it state by state), for :func:`seafreeze_state` to use. States outside the
+    form's range, or a seafreeze failure, are left to the state-by-state call.
+
+    Parameters
+    ----------
+    form : str
+        A form of :data:`FORMS`.
+    Ts, ps : list of float
+        Temperatures [K] and pressures [Pa] of the states, pairwise.
+    """
+    if form not in FORMS:
+        return
+    sf = _seafreeze()
+    code = FORMS[form]
+    (T_lo, T_hi), (p_lo, p_hi) = _ranges(code)
+    todo = [
+        (float(T), float(p))
+        for T, p in zip(Ts, ps, strict=True)
+        if T_lo <= T <= T_hi and p_lo <= p <= p_hi and p > 0.0 and (code, T, p) not in _PREFETCHED
+    ]
+    if not todo:
+        return
+    PT = np.empty((len(todo),), dtype=object)
+    for i, (T, p) in enumerate(todo):
+        PT[i] = (p / 1e6, T)
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            out = sf.getProp(PT, code)
+        cols = [np.asarray(getattr(out, k, np.full(len(todo), np.nan))).ravel() for k in _KEYS]
+    except Exception:  # noqa: BLE001 - the state-by-state call reports the failure
+        return
+    if len(_PREFETCHED) + len(todo) > _PREFETCH_MAX:
+        _PREFETCHED.clear()
+    for i, (T, p) in enumerate(todo):
+        _PREFETCHED[(code, T, p)] = tuple(float(c[i]) for c in cols)  # type: ignore[assignment]
+
+
 @lru_cache(maxsize=4096)
 def _evaluate(code: str, T: float, p: float) -> tuple[float, float, float, float]:
-    sf = _seafreeze()
+    sf = _seafreeze()  # first: without the package nothing is returned, prefetched or not
+    known = _PREFETCHED.get((code, T, p))
+    if known is not None:
+        return known
     PT = np.empty((1,), dtype=object)
     PT[0] = (p / 1e6, T)
     with warnings.catch_warnings():
