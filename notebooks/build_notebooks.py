@@ -118,7 +118,9 @@ assert pp.Route.load(saved).to_dict() == plan_c.to_dict()"""),
 ## Results and cautions
 
 * Plans A and B form dry ice at the valve on the way to 1 atm. Plan C forms no solid: its
-  first valve ends as vapor at 40 bar, and the reheated gas stays vapor through the second.
+  first valve ends as a wet vapor at 40 bar (about four fifths vapor by mass), the heater
+  vaporizes the rest and reheats it (the heat of leg 3 includes that latent heat), and the
+  reheated gas stays vapor through the second valve.
 * Every vent leg passes close to the critical point (31 °C, 73.8 bar): expect large swings in
   density and flow; size the heater for the worst case, not the average.
 * The vent model is a single throttle from a fixed upstream state. As the vessel empties its
@@ -273,8 +275,10 @@ planner"""),
   rejected unless the medium is held warmer than the temperature printed above.
 * The thaw window at −20 °C is narrow (about 194 to 246 MPa): control the pressure, not just
   the set point, and expect ice III if it overshoots.
-* Latent heats of the high-pressure ices are not modelled in phasepath (the table says so); do
-  not size heating or cooling from this plan for those legs.
+* Latent heats and the heat and work of legs in the high-pressure ices come from the
+  Gibbs-energy representations of Journaux et al. (2020), an optional extra
+  (`pip install "phasepath[ices]"`); without it the tables show "—" with the reason. Treat
+  those figures as model estimates when sizing heating or cooling.
 * Operate only within the vessel's rated pressure and temperature; defer to the
   manufacturer's instructions, local codes and licensed practice."""),
 ]

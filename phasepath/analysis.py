@@ -118,10 +118,13 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
     crossings: list[Crossing] = []
     legs: list[LegSummary] = []
     start_state = route.start.state
+    from_mixture = True  # the leg starts from a state given as such (the start, a mixture)
     for i, (leg, walk) in enumerate(zip(route.legs, walks, strict=True)):
         step = i + 1
         found: list[Crossing] = []
-        if i == 0 and start_state is not None and state_key(start_state) != walk.first:
+        if from_mixture and start_state is not None and state_key(start_state) != walk.first:
+            # the leg leaves a mixture (or a given start state) into another phase: the change
+            # happens on this leg, at its start, and its heat includes it
             found.append(
                 _crossing(
                     sub,
@@ -140,7 +143,10 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
             for c, before, after in walk.crossings
         ]
         end_key = walk.last
-        if i + 1 < len(walks) and walks[i + 1].first != end_key:
+        # a leg that ends on a mixture ends there (the next leg takes the change at its start);
+        # a leg that ends on a boundary takes the change of phase at its corner
+        ends_mixed = leg.state is not None and "+" in leg.state.phase
+        if i + 1 < len(walks) and walks[i + 1].first != end_key and not ends_mixed:
             T, p = leg.T, leg.p
             corner = _Candidate(T if leg.kind == "isobar" else p, T, p, "corner", "corner", 0)
             found.append(
@@ -176,6 +182,7 @@ def analyze(route: Route, basis: str = "steady-flow") -> Report:
         )
         crossings += found
         start_state = end
+        from_mixture = ends_mixed
     notes = list(sub.notes)
     if route.elevation is not None:
         notes.append(_ambient_note(sub, route.elevation))

@@ -271,7 +271,9 @@ def _curved_states(
 ) -> list[StatePoint]:
     """The drawn states of a curved leg, with the state at each crossing put in its place
     (h, s and v are continuous along such a leg: one state per crossing)."""
-    pts = _drawn_states(sub, leg)
+    # the analyser's marks at crossings carry only (T, p, phase); the crossings' full states are
+    # put in below
+    pts = [s for s in _drawn_states(sub, leg) if s.h is not None]
     held = LEG_KINDS[leg.kind].held
     along = 0 if held == "v" else 1
     for c in crossings:

@@ -300,11 +300,12 @@ def _state_Ts(sub: Substance, T: float, s: float) -> StatePoint:
         return _split(sub, T, p_s, s, "solid+vapor", gas, form, what, low=True)
     if T < T_c and sub.vapor is not None:
         p_v = sub.vapor.p_of_T(T)
-        liquid, vapor = states._saturated(sub, T, p_v)
+        liquid = states.saturated_mixture(sub, T, p_v, 0.0)
+        vapor = states.saturated_mixture(sub, T, p_v, 1.0)
         assert liquid.s is not None and vapor.s is not None
         if liquid.s <= s <= vapor.s:
             frac = (s - liquid.s) / (vapor.s - liquid.s)
-            return states.mixture(T, p_v, "liquid+vapor", liquid, vapor, frac)
+            return states.saturated_mixture(sub, T, p_v, frac)
         if s > vapor.s:
             return _single_by_s(sub, T, s, p_v * 1e-12, p_v, "vapor", None, what)
         return _dense(sub, T, s, p_v, "liquid", what)
