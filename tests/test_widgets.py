@@ -24,6 +24,7 @@ Check values:
 
 from __future__ import annotations
 
+import html
 import math
 import subprocess
 import sys
@@ -274,6 +275,24 @@ def test_exports(co2, tmp_path):
     from phasepath.routefile import load_route
 
     assert np.ravel(load_route(path).corners()) == pytest.approx(np.ravel(co2.route.corners()))
+
+
+def test_report_button_offers_the_review_report(co2):
+    import base64
+    import re
+
+    two_legs(co2)
+    co2.report_btn.click()
+    (link,) = re.findall(
+        r"download='report.html' href='data:text/html;base64,([^']+)'", co2.downloads.value
+    )
+    page = base64.b64decode(link).decode("utf-8")
+    assert "Crossings" in page and "condensation" in page and "<svg" in page
+    assert f"phasepath: <code>{pp.__version__}</code>" in page  # provenance
+    for caution in co2.report.cautions:  # the same cautions as every other surface
+        assert html.escape(caution, quote=False) in page or caution in page
+    drag(co2, 2, 25.0, 40.0)  # the route changes: the old link is withdrawn
+    assert "download=" not in co2.downloads.value
 
 
 # -- new leg kinds, hazards, fractions ----------------------------------------------------------
@@ -762,17 +781,20 @@ def test_picker_shows_plain_names_with_formula_and_pure_substances_only(co2):
 
 
 def test_quality_start_field(co2):
-    from phasepath.widgets.documents import QUALITY_STARTS
-
+    """A start by quality lies on the vapor-pressure curve: at -20 degC the CO2 vapor pressure
+    (CoolProp, Span & Wagner 1996, called directly) and the typed vapor fraction."""
+    CP = pytest.importorskip("CoolProp.CoolProp")
     co2.start_T.value, co2.start_p.value, co2.start_q.value = "-20 degC", "", "0.3"
     co2.start_btn.click()
-    if QUALITY_STARTS:  # the core takes Route(..., quality=): a start on the saturation curve
+    start = co2.route.start.state
+    assert start.vapor_fraction == pytest.approx(0.3)
+    assert start.p == pytest.approx(CP.PropsSI("P", "T", 253.15, "Q", 0.3, "CO2"), rel=1e-9)
+    assert co2.route.to_dict()["start"] == {"T": "-20 degC", "quality": "0.3"}
+    for bad in ("1.5", "abc"):  # refused by the core, named, and the route stays as it was
+        co2.start_q.value = bad
+        co2.start_btn.click()
+        assert "⚠" in co2.start_msg.value and repr(bad) in html.unescape(co2.start_msg.value)
         assert co2.route.start.state.vapor_fraction == pytest.approx(0.3)
-    else:
-        assert "quality" in co2.start_msg.value and co2.route is None
-    co2.start_q.value = "1.5"
-    co2.start_btn.click()
-    assert "⚠" in co2.start_msg.value
 
 
 def test_log_axes_have_one_tick_format(co2):

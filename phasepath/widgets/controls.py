@@ -144,6 +144,13 @@ def build(pl: RoutePlanner) -> None:
         layout=button,
         tooltip="prepare route.json, crossings.csv and legs.csv of the route shown",
     )
+    pl.report_btn = W.Button(
+        description="report",
+        icon="file-text",
+        layout=button,
+        tooltip="prepare report.html: the route's review report (one self-contained, printable "
+        "page: diagrams, tables, hazards, cautions, sources, provenance)",
+    )
     pl.downloads = W.HTML(export.ON_REQUEST)
     pl.png_btn = W.Button(
         description="PNG", icon="image", layout=button, tooltip="save the three diagrams as PNG"
@@ -204,6 +211,7 @@ def arrange(pl: RoutePlanner) -> list[Any]:
         [
             W.HTML("<b>Export</b>&nbsp;"),
             pl.files_btn,
+            pl.report_btn,
             pl.downloads,
             W.HTML("&nbsp;diagrams:&nbsp;"),
             pl.png_btn,

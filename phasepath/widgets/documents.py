@@ -9,7 +9,6 @@ core's strict reader (:mod:`phasepath.routefile`) and drawn; the planner saves t
 from __future__ import annotations
 
 import html
-import inspect
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
@@ -21,10 +20,7 @@ from . import drawing, events, export
 if TYPE_CHECKING:  # pragma: no cover
     import ipywidgets as W
 
-__all__ = ["Documents", "QUALITY_STARTS"]
-
-#: True where the core's Route takes a start quality (vapor mass fraction).
-QUALITY_STARTS = "quality" in inspect.signature(Route.__init__).parameters
+__all__ = ["Documents"]
 
 
 class Documents:
@@ -76,6 +72,12 @@ class Documents:
         """Build the download links (route.json, crossings.csv, legs.csv) of the route shown;
         they are built on request only, and withdrawn when the route changes."""
         self.downloads.value = export.download_links(self.route, self.report, self.units)
+
+    def prepare_report(self) -> None:
+        """Build the download link of report.html, the review report of the route shown (see
+        :meth:`phasepath.Report.to_html`), in the display units; withdrawn when the route
+        changes."""
+        self.downloads.value = export.report_link(self.report, self.units)
 
     def crossings_table(self) -> Any:
         """The crossings as a DataFrame in the display units (empty without a report)."""
@@ -135,15 +137,8 @@ class Documents:
         start: dict[str, Any] = {}
         if T_in:
             start["T"] = events.typed_text(T_in, "temperature", self.units)
-        if q_in:
-            if not QUALITY_STARTS:
-                raise PhasePathError(
-                    "a start by quality needs Route(..., quality=...), which this version of "
-                    "phasepath does not have yet: give T and p, or T and a density"
-                )
-            q = float(q_in)
-            if not 0.0 <= q <= 1.0:
-                raise PhasePathError(f"quality {q_in!r} is not between 0 and 1")
+        if q_in:  # kept as typed: the core checks it (a number from 0 to 1)
+            q = q_in
             if p_in:  # on the saturation curve at p (a temperature typed too is not needed)
                 return {"p": events.typed_text(p_in, "pressure", self.units), "quality": q}
             if "T" not in start:

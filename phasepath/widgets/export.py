@@ -15,12 +15,19 @@ from ..report import Report
 from ..route import Route
 from ..routefile import dumps_route, save_route
 
-__all__ = ["download_links", "save_route_file", "save_crossings_csv", "NOTHING_YET", "ON_REQUEST"]
+__all__ = [
+    "download_links",
+    "report_link",
+    "save_route_file",
+    "save_crossings_csv",
+    "NOTHING_YET",
+    "ON_REQUEST",
+]
 
 NOTHING_YET = "<span style='font-size:12px;color:#555'>nothing to export yet</span>"
 ON_REQUEST = (
     "<span style='font-size:12px;color:#555'>press “files” for route.json, crossings.csv "
-    "and legs.csv</span>"
+    "and legs.csv, or “report” for report.html</span>"
 )
 
 
@@ -38,6 +45,17 @@ def download_links(route: Route | None, report: Report | None, units: DisplayUni
             )
         )
         files.append(("legs.csv", "text/csv", tables.csv_table(tables.LEGS, report.legs, units)))
+    return _links(files)
+
+
+def report_link(report: Report | None, units: DisplayUnits) -> str:
+    """The data link of report.html, the review report of the route shown."""
+    if report is None:
+        return NOTHING_YET
+    return _links([("report.html", "text/html", report.to_html(units.T, units.p, units.energy))])
+
+
+def _links(files: list[tuple[str, str, str]]) -> str:
     if not files:
         return NOTHING_YET
     parts = []

@@ -170,6 +170,7 @@ class RoutePlanner(PointerEvents, Documents, W.VBox):
         self.clear_btn.on_click(lambda _b: self.clear())
         self.start_btn.on_click(lambda _b: self._typed_start())
         self.files_btn.on_click(lambda _b: self.prepare_files())
+        self.report_btn.on_click(lambda _b: self.prepare_report())
         self.png_btn.on_click(lambda _b: self.save_png())
         self.svg_btn.on_click(lambda _b: self.save_svg())
         self.title_field.observe(lambda ch: self._doc_edited("title", ch["new"]), names="value")
