@@ -207,8 +207,8 @@ def test_pT_path_is_the_drawn_line(co2):
 
 
 def test_path_has_a_gap_where_no_model_gives_h():
-    # nitrogen cooled at 1 bar until it freezes (63.2 K, the melting line of the reference EOS): solid nitrogen has no property model in
-    # phasepath, so the path on p-h stops where the solid forms
+    # nitrogen cooled at 1 bar until it freezes (63.2 K, on the melting line of the reference
+    # EOS): solid nitrogen has no property model in phasepath, so the path on p-h stops there
     rep = pp.Route("N2", T="70 K", p="1 bar").isobar(T="50 K").analyze()
     assert [(c.kind, c.to_phase) for c in rep.crossings] == [("freezing", "solid")]
     h, p = rep.path("ph")
