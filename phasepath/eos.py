@@ -143,27 +143,20 @@ class EOS:
 
     def p_melt(self, T: float) -> float:
         """CoolProp's melting pressure [Pa] at T [K] (no range check: the caller checks)."""
-        with self._lock:
-            try:
-                self.calls += 1
-                v = self._as.melting_line(CP.iP, CP.iT, T)
-            except Exception as exc:
-                raise PropertyError(
-                    f"{self.name}: melting line at T = {T} K failed: {exc}"
-                ) from None
-        return self._finite(v, f"melting pressure at T = {T} K")
+        return self._melting_line(CP.iP, CP.iT, T, f"melting pressure at T = {T} K")
 
     def T_melt(self, p: float) -> float:
         """CoolProp's melting temperature [K] at p [Pa] (no range check: the caller checks)."""
+        return self._melting_line(CP.iT, CP.iP, p, f"melting temperature at p = {p} Pa")
+
+    def _melting_line(self, out: int, given: int, value: float, what: str) -> float:
         with self._lock:
             try:
                 self.calls += 1
-                v = self._as.melting_line(CP.iT, CP.iP, p)
+                v = self._as.melting_line(out, given, value)
             except Exception as exc:
-                raise PropertyError(
-                    f"{self.name}: melting line at p = {p} Pa failed: {exc}"
-                ) from None
-        return self._finite(v, f"melting temperature at p = {p} Pa")
+                raise PropertyError(f"{self.name}: {what} failed: {exc}") from None
+        return self._finite(v, what)
 
     # -- single-phase states --------------------------------------------------------------------
     def state(self, T: float, p: float, phase: str) -> tuple[float, float, float]:

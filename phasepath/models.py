@@ -27,7 +27,7 @@ from typing import TYPE_CHECKING
 from .correlations import co2, ice_ih, seafreeze_ices, water_ice_phases
 from .correlations.vapor_pressure import R
 from .errors import NoModelError, OutOfRangeError, PhasePathError
-from .records import LatentHeat, StatePoint
+from .records import CROSSING_KINDS, LatentHeat, StatePoint
 
 if TYPE_CHECKING:  # pragma: no cover
     from .substances import Substance
@@ -46,16 +46,8 @@ __all__ = [
 ]
 
 EOS_MODEL = "reference EOS (CoolProp)"
-#: Crossing kinds that have a latent heat.
-FIRST_ORDER = (
-    "melting",
-    "freezing",
-    "vaporization",
-    "condensation",
-    "sublimation",
-    "deposition",
-    "solid-transition",
-)
+#: Crossing kinds that have a latent heat (every kind but the supercritical ones).
+FIRST_ORDER = tuple(k for k in CROSSING_KINDS if not k.startswith("supercritical"))
 
 
 def phase_state(

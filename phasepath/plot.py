@@ -254,6 +254,17 @@ def _plan(
         )
 
 
+def _finish(plt: Any, fig: Any, ax: Any, fmt: str, xlabel: str, ylabel: str, title: str) -> bytes:
+    """Labels, grid and legend of a figure, then its bytes."""
+    ax.set_xlabel(xlabel)
+    ax.set_ylabel(ylabel)
+    ax.set_title(title, fontsize=11)
+    ax.grid(True, which="major", color="#e3e3e3", lw=0.6)
+    ax.legend(loc="lower right", fontsize=7.5, frameon=True, framealpha=0.9)
+    fig.tight_layout()
+    return _save(plt, fig, fmt)
+
+
 def _save(plt: Any, fig: Any, fmt: str) -> bytes:
     meta = (
         {"Date": None, "Creator": None, "Format": None, "Type": None}
@@ -311,13 +322,16 @@ def comparison_bytes(
         ax.set_yscale("log")
         ax.set_xlim(s.T(T_lo), s.T(T_hi))
         ax.set_ylim(s.p(p_lo), s.p(p_hi))
-        ax.set_xlabel(f"temperature [{UNIT_LABELS[units.T]}]")
-        ax.set_ylabel(f"pressure [{UNIT_LABELS[units.p]}]")
-        ax.set_title(title or f"{sub.name}: phase diagram", fontsize=11)
-        ax.grid(True, which="major", color="#e3e3e3", lw=0.6)
-        ax.legend(loc="lower right", fontsize=7.5, frameon=True, framealpha=0.9)
-        fig.tight_layout()
-        return _save(plt, fig, fmt)
+        heading = title or f"{sub.name}: phase diagram"
+        return _finish(
+            plt,
+            fig,
+            ax,
+            fmt,
+            f"temperature [{UNIT_LABELS[units.T]}]",
+            f"pressure [{UNIT_LABELS[units.p]}]",
+            heading,
+        )
     finally:
         plt.close(fig)
 
@@ -461,12 +475,15 @@ def ph_bytes(
         ax.set_yscale("log")
         ps = dome_p + [p for _, p in corners]
         ax.set_ylim(s.p(min(ps) / 2.0), s.p(max(ps) * 2.0))
-        ax.set_xlabel(f"specific enthalpy [{UNIT_LABELS[units.energy]}]")
-        ax.set_ylabel(f"pressure [{UNIT_LABELS[units.p]}]")
-        ax.set_title(title or f"{report.route.title or sub.name}: p-h view", fontsize=11)
-        ax.grid(True, which="major", color="#e3e3e3", lw=0.6)
-        ax.legend(loc="lower right", fontsize=7.5, frameon=True, framealpha=0.9)
-        fig.tight_layout()
-        return _save(plt, fig, fmt)
+        heading = title or f"{report.route.title or sub.name}: p-h view"
+        return _finish(
+            plt,
+            fig,
+            ax,
+            fmt,
+            f"specific enthalpy [{UNIT_LABELS[units.energy]}]",
+            f"pressure [{UNIT_LABELS[units.p]}]",
+            heading,
+        )
     finally:
         plt.close(fig)

@@ -40,7 +40,8 @@ from functools import cache, lru_cache
 
 import numpy as np
 
-from ..errors import NonFiniteError, OutOfRangeError, PhasePathError, PropertyError
+from ..errors import OutOfRangeError, PhasePathError, PropertyError
+from ._checks import number
 
 __all__ = [
     "SOURCES",
@@ -143,16 +144,6 @@ def _ranges(code: str) -> tuple[tuple[float, float], tuple[float, float]]:
     sf = _seafreeze()
     r = sf.phase_range(code)
     return (float(r.T[0]), float(r.T[1])), (float(r.P[0]) * 1e6, float(r.P[1]) * 1e6)
-
-
-def _number(name: str, value: object) -> float:
-    try:
-        x = float(value)  # type: ignore[arg-type]
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"{name} = {value!r} is not a number") from None
-    if not math.isfinite(x):
-        raise NonFiniteError(f"{name} = {value!r} is not a finite number")
-    return x
 
 
 _PREFETCHED: dict[tuple[str, float, float], tuple[float, float, float, float]] = {}
@@ -264,8 +255,8 @@ def seafreeze_state(form: str, T: float, p: float) -> SeafreezeState:
         raise OutOfRangeError(
             f"form = {form!r} is not one of the phases seafreeze gives here: {', '.join(FORMS)}"
         )
-    T = _number("T", T)
-    p = _number("p", p)
+    T = number("T", T)
+    p = number("p", p)
     code = FORMS[form]
     (T_lo, T_hi), (p_lo, p_hi) = _ranges(code)
     if not T_lo <= T <= T_hi:

@@ -40,7 +40,8 @@ from dataclasses import dataclass, field
 import numpy as np
 from scipy.optimize import brentq
 
-from ..errors import NonFiniteError, OutOfRangeError
+from ..errors import OutOfRangeError
+from ._checks import number
 
 __all__ = [
     "SOURCES",
@@ -190,16 +191,6 @@ def _dtdp_dunaeva(coef: tuple, P: float) -> float:
     return b + c / P - d / (P * P) + e / (2.0 * math.sqrt(P))
 
 
-def _number(name: str, value: object) -> float:
-    try:
-        x = float(value)  # type: ignore[arg-type]
-    except (TypeError, ValueError):
-        raise NonFiniteError(f"{name} = {value!r} is not a number") from None
-    if not math.isfinite(x):
-        raise NonFiniteError(f"{name} = {value!r} is not a finite number")
-    return x
-
-
 def _row(a: str, b: str) -> tuple[tuple[str, str], tuple]:
     for key in ((a, b), (b, a)):
         if key in _TABLE2:
@@ -240,7 +231,7 @@ def dunaeva_2010_temperature(a: str, b: str, p: float) -> float:
     251.16
     """
     key, (_, (P_lo, P_hi), coef) = _row(a, b)
-    p = _number("p", p)
+    p = number("p", p)
     P = p / 1e5
     if not P_lo <= P <= P_hi:
         raise OutOfRangeError(
@@ -350,7 +341,7 @@ class SolidBoundary:
 
     def temperature(self, p: float) -> float:
         """Coexistence temperature [K] at pressure ``p`` [Pa], ``p_min`` to ``p_max``."""
-        p = _number("p", p)
+        p = number("p", p)
         if not self.p_min <= p <= self.p_max:
             raise OutOfRangeError(
                 f"p = {p!r} Pa is outside the {self._name()}: "
@@ -375,7 +366,7 @@ class SolidBoundary:
         >>> round(b.pressure(238.5) / 1e6, 3), round(b.pressure(251.165) / 1e6, 3)
         (213.0, 208.566)
         """
-        T = _number("T", T)
+        T = number("T", T)
         if not self.T_min <= T <= self.T_max:
             raise OutOfRangeError(
                 f"T = {T!r} K is outside the {self._name()}: {self.T_min} K to {self.T_max} K"
@@ -611,8 +602,8 @@ def ice_form(T: float, p: float) -> str:
     >>> ice_form(300.0, 1.0e9)
     'VI'
     """
-    T = _number("T", T)
-    p = _number("p", p)
+    T = number("T", T)
+    p = number("p", p)
     if T < T_MIN:
         raise OutOfRangeError(
             f"T = {T!r} K is below {T_MIN} K, where the ice Ih-II, II-VI and VI-VIII boundaries "

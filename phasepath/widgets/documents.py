@@ -16,6 +16,7 @@ from .. import routefile
 from ..errors import PhasePathError
 from ..route import Route
 from . import drawing, events, export
+from .host import PlannerHost
 
 if TYPE_CHECKING:  # pragma: no cover
     import ipywidgets as W
@@ -23,11 +24,9 @@ if TYPE_CHECKING:  # pragma: no cover
 __all__ = ["Documents"]
 
 
-class Documents:
+class Documents(PlannerHost):
     """Title, notes, route files, the typed start and the exports of the planner."""
 
-    _spec: dict[str, Any]
-    _busy: bool
     route: Route | None
     message: str
     start_T: W.Text
@@ -41,26 +40,12 @@ class Documents:
     if TYPE_CHECKING:  # pragma: no cover - provided by the planner
 
         @property
-        def units(self) -> Any: ...
-        @property
-        def report(self) -> Any: ...
-        @property
         def T_unit(self) -> str: ...
         @property
         def p_unit(self) -> str: ...
         @property
         def energy_unit(self) -> str: ...
-        def _say(self, msg: str, keep_fields: bool = False) -> str: ...
-        def _commit(
-            self,
-            spec: dict[str, Any],
-            *,
-            force: bool = False,
-            fit: bool = False,
-            keep_fields: bool = False,
-        ) -> str: ...
         def _shown(self, msg: str) -> str: ...
-        def _quiet(self) -> Any: ...
 
     def load_route(self, path: str | Path) -> Route:
         """Open a route file (JSON or YAML) in the planner; returns the route."""

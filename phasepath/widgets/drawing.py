@@ -157,12 +157,8 @@ def move_corner(
     take (the temperature at the end of a constant-enthalpy leg) is refused with the reason; a
     drag then moves the corner along its own leg only.
     """
-    new = copy.deepcopy(spec)
-    if new["start"] is None:
-        raise IndexError("the route has no corners yet")
+    new = _copy_with_corner(spec, index)
     legs = new["legs"]
-    if not 0 <= index <= len(legs):
-        raise IndexError(f"corner {index} does not exist (0 to {len(legs)})")
     drag = T_text is not None and p_text is not None
     values = {"T": T_text, "p": p_text}
     if index == 0:
@@ -203,6 +199,15 @@ def move_corner(
     return new
 
 
+def _copy_with_corner(spec: Spec, index: int) -> Spec:
+    """A copy of the drawing, refused (IndexError) where corner ``index`` does not exist."""
+    if spec["start"] is None:
+        raise IndexError("the route has no corners yet")
+    if not 0 <= index <= len(spec["legs"]):
+        raise IndexError(f"corner {index} does not exist (0 to {len(spec['legs'])})")
+    return copy.deepcopy(spec)
+
+
 def _set_start(spec: Spec, coord: str, value: str) -> None:
     start = spec["start"]
     if coord == "p":
@@ -240,12 +245,8 @@ def delete_corner(spec: Spec, index: int) -> Spec:
     """Remove corner ``index``. Deleting the start makes the next corner the start (by its
     density where it is a two-phase mixture); deleting a later corner removes the leg that ends
     there (the next leg keeps its own target)."""
-    new = copy.deepcopy(spec)
-    if new["start"] is None:
-        raise IndexError("the route has no corners yet")
+    new = _copy_with_corner(spec, index)
     legs = new["legs"]
-    if not 0 <= index <= len(legs):
-        raise IndexError(f"corner {index} does not exist (0 to {len(legs)})")
     if index == 0:
         if not legs:
             new["start"] = None

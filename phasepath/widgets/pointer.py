@@ -21,6 +21,7 @@ from ..units import STANDARD_ATMOSPHERE, convert
 from ..views import AXES, state_at
 from . import clicks, drawing, events
 from .coords import event_pixel, from_view, unit_of
+from .host import PlannerHost
 from .readout import coordinate_text, in_display_units, state_text
 from .snap import snap_linear, snap_log
 
@@ -34,13 +35,12 @@ SELECT_PX = 8.0
 _FREE = ("shiftKey", "altKey", "ctrlKey", "metaKey")
 
 
-class PointerEvents:
+class PointerEvents(PlannerHost):
     """The planner's handlers of the page's pointer events (mixed into RoutePlanner)."""
 
     canvases: dict[str, ViewCanvas]
     mode: str
     leg_kind: str
-    _spec: dict[str, Any]
     _sub: Any
     _corners: list[tuple[float, float]]
     _states: list[Any]
@@ -48,12 +48,7 @@ class PointerEvents:
 
     if TYPE_CHECKING:  # pragma: no cover - provided by the planner
 
-        @property
-        def units(self) -> Any: ...
-        @property
-        def report(self) -> Any: ...
         def select(self, index: int | None) -> None: ...
-        def _say(self, msg: str, keep_fields: bool = False) -> str: ...
         def _add(self, T_text: str, p_text: str, kind: str | None) -> str: ...
         def _move(
             self,
@@ -62,16 +57,7 @@ class PointerEvents:
             p_text: str | None = None,
             keep_fields: bool = False,
         ) -> str: ...
-        def _commit(
-            self,
-            spec: dict[str, Any],
-            *,
-            force: bool = False,
-            fit: bool = False,
-            keep_fields: bool = False,
-        ) -> str: ...
         def _redraw(self) -> None: ...
-        def _quiet(self) -> Any: ...
 
         selected: int | None
 
