@@ -241,6 +241,12 @@ def test_three_linked_views_readout_and_a_drag_on_ph(page, voila_url, artifacts)
     p1 = _number(page.locator(".pp-legs .pp-row").nth(1).locator("input").nth(1).input_value())
     _, p_drop = ph.data(x1, y1)
     assert p1 == pytest.approx(p_drop, rel=0.02)  # within a pixel or two of the drop
+    # the tables are another widget: their update may reach the page a moment later
+    page.wait_for_function(
+        "() => { const c = document.querySelectorAll('table.pp-legsum tr.pp-leg td.pp-c-p0'); "
+        "return c.length > 1 && Number(c[1].textContent) > 2; }",
+        timeout=30_000,
+    )
     legs = _rows(page, "table.pp-legsum tr.pp-leg")
     assert _number(legs[1]["p0"]) == pytest.approx(p1, rel=1e-3)  # the isobar followed
     page.wait_for_timeout(300)
